@@ -1,0 +1,56 @@
+package org.exhale.io;
+
+/**
+ * Bad input: one line naming the file, the place in it (key path or CSV row and column), the
+ * line where known, what was found and what was expected. The command line prints
+ * {@link #getMessage()} and exits with code 2.
+ */
+public final class InputException extends RuntimeException {
+    private final ErrorKind kind;
+    private final String file;
+    private final String where;
+    private final int line;
+
+    public InputException(ErrorKind kind, String file, String where, int line, String what) {
+        super(format(file, where, line, what));
+        this.kind = kind;
+        this.file = file;
+        this.where = where;
+        this.line = line;
+    }
+
+    public InputException(ErrorKind kind, String file, String where, int line, String what, Throwable cause) {
+        this(kind, file, where, line, what);
+        initCause(cause);
+    }
+
+    private static String format(String file, String where, int line, String what) {
+        StringBuilder sb = new StringBuilder();
+        sb.append(file == null ? "<input>" : file);
+        if (line > 0) {
+            sb.append(':').append(line);
+        }
+        if (where != null && !where.isEmpty()) {
+            sb.append(": ").append(where);
+        }
+        sb.append(": ").append(what.replace('\n', ' ').replace('\r', ' '));
+        return sb.toString();
+    }
+
+    public ErrorKind kind() {
+        return kind;
+    }
+
+    public String file() {
+        return file;
+    }
+
+    public String where() {
+        return where;
+    }
+
+    /** 1-based line, or 0 where unknown. */
+    public int line() {
+        return line;
+    }
+}

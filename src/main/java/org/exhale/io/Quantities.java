@@ -1,0 +1,99 @@
+package org.exhale.io;
+
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * Strict reader of "number unit" strings as engineers type them ("350 C", "1.5nm", "8 GPa",
+ * "3.0e10 1/s", "0.5 %"). A value is a plain decimal number (point, never comma) with an optional
+ * exponent, then an optional unit from the kind's table. Anything else — trailing text, a unit of
+ * another kind, NaN, infinity — is refused with a message naming what was expected.
+ */
+public final class Quantities {
+    private static final Pattern NUMBER_UNIT =
+            Pattern.compile("^\\s*([+-]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][+-]?\\d+)?)\\s*(.*?)\\s*$");
+
+    private Quantities() {
+    }
+
+    /**
+     * Parses text to an SI value.
+     *
+     * @param text      the text as typed
+     * @param kind      the expected kind of quantity
+     * @param allowBare whether a bare number (no unit) is taken as SI / dimensionless
+     * @throws IllegalArgumentException with a message saying what was expected
+     */
+    public static double parse(String text, UnitKind kind, boolean allowBare) {
+        if (text == null || text.isBlank()) {
+            throw new IllegalArgumentException("empty value, expected a " + kind.description() + expectedUnits(kind));
+        }
+        Matcher m = NUMBER_UNIT.matcher(text);
+        if (!m.matches()) {
+            throw new IllegalArgumentException("'" + text + "' is not a number with a unit, expected a "
+                    + kind.description() + expectedUnits(kind));
+        }
+        double value;
+        try {
+            value = Double.parseDouble(m.group(1));
+        } catch (NumberFormatException e) {
+            throw new IllegalArgumentException("'" + text + "' is not a number");
+        }
+        if (!Double.isFinite(value)) {
+            throw new IllegalArgumentException("'" + text + "' is too large, expected a finite " + kind.description());
+        }
+        String symbol = normaliseSymbol(m.group(2));
+        if (symbol.isEmpty() && !allowBare && kind.unit("") == null) {
+            throw new IllegalArgumentException("'" + text + "' has no unit, expected a " + kind.description()
+                    + expectedUnits(kind));
+        }
+        UnitKind.Unit unit = symbol.isEmpty() && kind.unit("") == null
+                ? new UnitKind.Unit("", 1, 0) : kind.unit(symbol);
+        if (unit == null) {
+            UnitKind other = kindOf(symbol);
+            String hint = other != null ? " ('" + symbol + "' is a " + other.description() + " unit)"
+                    : didYouMean(symbol, kind);
+            throw new IllegalArgumentException("unit '" + symbol + "' in '" + text + "' is not a "
+                    + kind.description() + " unit" + hint + expectedUnits(kind));
+        }
+        double si = unit.toSi(value);
+        if (!Double.isFinite(si)) {
+            throw new IllegalArgumentException("'" + text + "' is too large");
+        }
+        return si;
+    }
+
+    /** Parses a number with no unit at all (model exponents, counts, plain fractions). */
+    public static double parseNumber(String text) {
+        return parse(text, UnitKind.NUMBER, true);
+    }
+
+    static String normaliseSymbol(String s) {
+        String t = s.trim();
+        t = t.replace("m^2", "m2").replace("m²", "m2").replace("cm³", "cm3").replace("m³", "m3")
+                .replace("s^-1", "s-1").replace("s⁻¹", "s-1").replace("·", " ");
+        return t.replaceAll("\\s+", " ");
+    }
+
+    private static UnitKind kindOf(String symbol) {
+        if (symbol.isEmpty()) {
+            return null;
+        }
+        for (UnitKind k : UnitKind.values()) {
+            if (k != UnitKind.STRESS && k != UnitKind.TEMPERATURE_DIFFERENCE && k.unit(symbol) != null) {
+                return k;
+            }
+        }
+        return null;
+    }
+
+    private static String expectedUnits(UnitKind kind) {
+        return " (units: " + String.join(", ", kind.symbols().stream()
+                .map(s -> s.isEmpty() ? "none" : s).toList()) + ")";
+    }
+
+    private static String didYouMean(String symbol, UnitKind kind) {
+        String best = Names.closest(symbol, kind.symbols());
+        return best == null || best.isEmpty() ? "" : " (did you mean '" + best + "'?)";
+    }
+}
