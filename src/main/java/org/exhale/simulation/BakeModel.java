@@ -1,0 +1,308 @@
+package org.exhale.simulation;
+
+import java.util.ArrayList;
+import java.util.List;
+
+import org.exhale.PhysicalConstants;
+import org.exhale.kinetics.Component;
+import org.exhale.kinetics.Polymer;
+import org.exhale.kinetics.Product;
+import org.exhale.kinetics.ReactionModel;
+import org.exhale.recipe.Segment;
+import org.exhale.transport.GasTransport;
+
+/**
+ * The bake equations of one wafer corner (MODEL.md §2–§5, §7): rates only, no integration and no
+ * I/O. Holds per-run scratch arrays and the current recipe segment, so one instance serves one
+ * run on one thread.
+ *
+ * <p>State vector: conversions α_j; in the full-gas regime the moles under the cap and the moles
+ * vented, each normalised by the gasifiable moles n0_j = m0 w_j (1 − c_j)/M_j (so that
+ * α_j − α_j(0) = x_j + v_j is the mass balance); the thermal dose [s]; and the wafer temperature
+ * when the wafer lags the setpoint.
+ */
+final class BakeModel {
+    private static final double R = PhysicalConstants.GAS_CONSTANT;
+
+    final int k;
+    final GasRegime regime;
+    final int iGas;
+    final int iVent;
+    final int iDose;
+    final int iWafer;
+    final int dim;
+
+    private final double lagS;
+    private final double offsetK;
+    private final double heightM;
+    private final double fixedVolumeM;
+    private final double[] weightGasFree;
+    private final double[] gasifiable;
+    private final double[] alpha0;
+    private final double[] fraction;
+    private final Component[] components;
+    private final ReactionModel[] models;
+    private final GasTransport transport;
+    private final double doseEOverR;
+    private final double doseInvRef;
+    private final boolean hasDose;
+    private final List<String> names;
+
+    private Segment segment;
+
+    // scratch, reused on every call
+    private final double[] rate;
+    private final double[] gen;
+    private final double[] perm;
+    private final double[] part;
+
+    // observable layout
+    final int oTime = 0;
+    final int oSetpoint = 1;
+    final int oWafer = 2;
+    final int oAlpha = 3;
+    final int oUnconverted;
+    final int oPressure;
+    final int oPartial;
+    final int oFlux;
+    final int oRelax;
+    final int oDose;
+    final int oStored;
+    final int oGasified;
+    final int oVented;
+    final int observableCount;
+
+    BakeModel(BakeCase bake, double offsetK, GasRegime regime) {
+        Polymer polymer = bake.polymer();
+        this.k = polymer.size();
+        this.regime = regime;
+        this.offsetK = offsetK;
+        this.lagS = bake.wafer().lagS();
+        this.heightM = bake.cavity().heightM();
+        this.fixedVolumeM = polymer.freeVolumeFraction() * heightM
+                + bake.cap().porosity() * bake.cap().thicknessM() / 2;
+        if (!(fixedVolumeM > 0)) {
+            throw new IllegalArgumentException("polymer free_volume and cap porosity are both zero: "
+                    + "the gas under the cap would start with no volume");
+        }
+        double m0 = polymer.densityKgPerM3() * heightM;
+        components = polymer.components().toArray(new Component[0]);
+        models = new ReactionModel[k];
+        weightGasFree = new double[k];
+        gasifiable = new double[k];
+        alpha0 = new double[k];
+        fraction = new double[k];
+        List<Product> products = new ArrayList<>();
+        names = new ArrayList<>();
+        for (int j = 0; j < k; j++) {
+            Component c = components[j];
+            models[j] = c.model();
+            fraction[j] = c.fraction();
+            weightGasFree[j] = c.fraction() * (1 - c.charFraction());
+            gasifiable[j] = m0 * weightGasFree[j] / c.product().molarMassKgPerMol();
+            alpha0[j] = polymer.initialConversion(j);
+            products.add(c.product());
+            names.add(c.name());
+        }
+        transport = new GasTransport(bake.cap(), bake.ambient(), products);
+        ThermalDose dose = bake.limits().dose();
+        hasDose = dose != null;
+        doseEOverR = hasDose ? dose.activationEnergyJPerMol() / R : 0;
+        doseInvRef = hasDose ? 1 / dose.referenceK() : 0;
+
+        int next = k;
+        if (regime == GasRegime.FULL_GAS) {
+            iGas = next;
+            iVent = next + k;
+            next += 2 * k;
+        } else {
+            iGas = -1;
+            iVent = -1;
+        }
+        iDose = next++;
+        iWafer = lagS > 0 ? next++ : -1;
+        dim = next;
+
+        rate = new double[k];
+        gen = new double[k];
+        perm = new double[k];
+        part = new double[k];
+
+        oUnconverted = oAlpha + k;
+        oPressure = oUnconverted + 1;
+        oPartial = oPressure + 1;
+        oFlux = oPartial + k;
+        oRelax = oFlux + 1;
+        oDose = oRelax + 1;
+        oStored = oDose + 1;
+        oGasified = oStored + 1;
+        oVented = oGasified + 1;
+        observableCount = oVented + 1;
+    }
+
+    GasTransport transport() {
+        return transport;
+    }
+
+    List<String> componentNames() {
+        return names;
+    }
+
+    /** Column names of {@link #observe}, SI units in the suffix. */
+    List<String> observableNames() {
+        List<String> out = new ArrayList<>();
+        out.add("time_s");
+        out.add("setpoint_K");
+        out.add("wafer_K");
+        for (String n : names) {
+            out.add("alpha_" + n);
+        }
+        out.add("unconverted");
+        out.add("excess_pressure_Pa");
+        for (String n : names) {
+            out.add("p_" + n + "_Pa");
+        }
+        out.add("vent_flux_mol_m2_s");
+        out.add("relaxation_time_s");
+        out.add("thermal_dose_s");
+        out.add("stored_mol_m2");
+        out.add("gasified_mol_m2");
+        out.add("vented_mol_m2");
+        return out;
+    }
+
+    void setSegment(Segment s) {
+        this.segment = s;
+    }
+
+    double[] initialState(double startSetpointK) {
+        double[] y = new double[dim];
+        System.arraycopy(alpha0, 0, y, 0, k);
+        if (iWafer >= 0) {
+            y[iWafer] = startSetpointK + offsetK;
+        }
+        return y;
+    }
+
+    double setpoint(double t) {
+        return segment.setpointAt(t) + offsetK;
+    }
+
+    double waferTemperature(double t, double[] y) {
+        return iWafer >= 0 ? y[iWafer] : setpoint(t);
+    }
+
+    /** Storage volume per area V_g [m³/m² = m]. */
+    double gasVolume(double[] y) {
+        double freed = 0;
+        for (int j = 0; j < k; j++) {
+            freed += weightGasFree[j] * Math.min(Math.max(y[j], 0), 1);
+        }
+        return heightM * freed + fixedVolumeM;
+    }
+
+    /** dy/dt; allocates nothing. */
+    void derivatives(double t, double[] y, double[] dy) {
+        double temp = waferTemperature(t, y);
+        for (int j = 0; j < k; j++) {
+            double r = components[j].rateConstant(temp) * models[j].f(y[j]);
+            rate[j] = r;
+            dy[j] = r;
+        }
+        if (regime == GasRegime.FULL_GAS) {
+            double vg = gasVolume(y);
+            double dp = 0;
+            for (int j = 0; j < k; j++) {
+                part[j] = Math.max(y[iGas + j], 0) * gasifiable[j] * R * temp / vg;
+                dp += part[j];
+            }
+            double c = transport.viscousConductance(temp, dp);
+            for (int j = 0; j < k; j++) {
+                double flux = (transport.permeance(j, temp) + c) * part[j] / gasifiable[j];
+                dy[iGas + j] = rate[j] - flux;
+                dy[iVent + j] = flux;
+            }
+        }
+        dy[iDose] = hasDose ? Math.exp(-doseEOverR * (1 / temp - doseInvRef)) : 0;
+        if (iWafer >= 0) {
+            dy[iWafer] = (setpoint(t) - y[iWafer]) / lagS;
+        }
+    }
+
+    /** Everything reported at an instant, SI units, into {@code out} (length {@link #observableCount}). */
+    void observe(double t, double[] y, double[] out) {
+        double temp = waferTemperature(t, y);
+        out[oTime] = t;
+        out[oSetpoint] = setpoint(t);
+        out[oWafer] = temp;
+        double u = 0;
+        double gasified = 0;
+        for (int j = 0; j < k; j++) {
+            double a = y[j];
+            out[oAlpha + j] = a;
+            u += fraction[j] * (1 - Math.min(Math.max(a, 0), 1));
+            rate[j] = components[j].rateConstant(temp) * models[j].f(a);
+            gen[j] = gasifiable[j] * rate[j];
+            perm[j] = transport.permeance(j, temp);
+            gasified += gasifiable[j] * (Math.min(a, 1) - alpha0[j]);
+        }
+        out[oUnconverted] = u;
+        double vg = gasVolume(y);
+        double dp;
+        double stored = 0;
+        double vented = 0;
+        if (regime == GasRegime.FULL_GAS) {
+            dp = 0;
+            for (int j = 0; j < k; j++) {
+                double n = Math.max(y[iGas + j], 0) * gasifiable[j];
+                stored += n;
+                vented += y[iVent + j] * gasifiable[j];
+                part[j] = n * R * temp / vg;
+                dp += part[j];
+            }
+        } else {
+            dp = transport.quasiSteadyExcessPressure(temp, gen, perm);
+            double c = transport.viscousConductance(temp, dp);
+            for (int j = 0; j < k; j++) {
+                part[j] = gen[j] == 0 ? 0 : gen[j] / (perm[j] + c);
+                stored += part[j] * vg / (R * temp);
+            }
+            vented = gasified - stored;
+        }
+        double c = transport.viscousConductance(temp, dp);
+        double flux = 0;
+        double relax = 0;
+        for (int j = 0; j < k; j++) {
+            out[oPartial + j] = part[j];
+            flux += (perm[j] + c) * part[j];
+            double conductance = perm[j] + c;
+            relax = Math.max(relax, conductance > 0 ? vg / (R * temp * conductance) : Double.POSITIVE_INFINITY);
+        }
+        out[oPressure] = dp;
+        out[oFlux] = flux;
+        out[oRelax] = relax;
+        out[oDose] = y[iDose];
+        out[oStored] = stored;
+        out[oGasified] = gasified;
+        out[oVented] = vented;
+    }
+
+    /** Gasifiable moles per area of the whole polymer, Σ m0 w_j (1 − c_j)/M_j [mol/m²]. */
+    static double gasifiableMoles(BakeCase bake) {
+        double m0 = bake.polymer().densityKgPerM3() * bake.cavity().heightM();
+        double s = 0;
+        for (Component c : bake.polymer().components()) {
+            s += m0 * c.fraction() * (1 - c.charFraction()) / c.product().molarMassKgPerMol();
+        }
+        return s;
+    }
+
+    /** Total gasifiable moles per area, Σ n0_j (α from its seed to 1) [mol/m²]. */
+    double totalGasifiable() {
+        double s = 0;
+        for (int j = 0; j < k; j++) {
+            s += gasifiable[j] * (1 - alpha0[j]);
+        }
+        return s;
+    }
+}

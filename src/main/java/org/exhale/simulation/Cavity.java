@@ -1,0 +1,31 @@
+package org.exhale.simulation;
+
+/**
+ * The cavity filled with polymer. Gas leaves only through the cap above it, so all balances are
+ * per unit of cavity (= vent) area and only the height enters the gas balance; the plan-view
+ * size enters the cap mechanics.
+ *
+ * @param shape   plan-view shape
+ * @param widthM  line width, rectangle short side, or disc diameter w [m]
+ * @param lengthM rectangle long side L [m] (equal to the width for other shapes)
+ * @param heightM cavity height d [m]
+ */
+public record Cavity(CavityShape shape, double widthM, double lengthM, double heightM) {
+    public Cavity {
+        if (shape == null) {
+            throw new IllegalArgumentException("cavity shape is required");
+        }
+        if (!(widthM > 0 && widthM < 0.1)) {
+            throw new IllegalArgumentException("cavity width must be in (0, 100) mm, got " + widthM + " m");
+        }
+        if (!(heightM > 0 && heightM < 0.01)) {
+            throw new IllegalArgumentException("cavity height must be in (0, 10) mm, got " + heightM + " m");
+        }
+        if (shape == CavityShape.RECTANGLE && !(lengthM >= widthM && lengthM < 1)) {
+            throw new IllegalArgumentException("rectangle length must be at least its width, got " + lengthM + " m");
+        }
+        if (shape != CavityShape.RECTANGLE) {
+            lengthM = widthM;
+        }
+    }
+}

@@ -1,0 +1,328 @@
+package org.exhale.simulation;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+import org.exhale.recipe.Recipe;
+import org.exhale.recipe.Segment;
+import org.hipparchus.analysis.solvers.BrentSolver;
+import org.hipparchus.ode.ODEState;
+import org.hipparchus.ode.ODEStateAndDerivative;
+import org.hipparchus.ode.OrdinaryDifferentialEquation;
+import org.hipparchus.ode.nonstiff.DormandPrince853Integrator;
+import org.hipparchus.ode.sampling.ODEStateInterpolator;
+
+/**
+ * Drives the integrator over one corner's bake, segment by segment (restarting at every recipe
+ * breakpoint), and observes every accepted step through its dense output: history rows on a fixed
+ * grid, maxima refined between samples by golden-section search, residue crossings by Brent's
+ * method, and the quasi-steady error estimate.
+ */
+final class CornerRun {
+    /** Samples per accepted step at which observables are evaluated. */
+    private static final int SAMPLES = 8;
+
+    private final BakeModel model;
+    private final Recipe recipe;
+    private final SimulationSettings settings;
+    private final double residueTarget;
+    private final String corner;
+    private final double offsetK;
+    private final List<String> columns;
+    private final int[] tracked;
+    private final double[] maxValue;
+    private final double[] maxTime;
+    private final double[][] samples;
+    private final double[] sampleTimes;
+    private final double[] scratchState;
+    private final double[] scratchObs;
+    private final List<double[]> history = new ArrayList<>();
+    private double nextSample;
+    private double timeTo1pct = Double.NaN;
+    private double timeToTarget = Double.NaN;
+    private double qsError;
+    private double storedPeak;
+    private boolean first = true;
+    private long evaluations;
+
+    private final double gasScale;
+
+    /**
+     * @param gasScale expected peak of the normalised moles under the cap (from a quasi-steady
+     *                 pre-run), which sets the absolute tolerance of the gas states
+     */
+    CornerRun(BakeCase bake, String corner, double offsetK, GasRegime regime, SimulationSettings settings,
+              double gasScale) {
+        this.gasScale = Double.isFinite(gasScale) && gasScale > 0 ? Math.min(gasScale, 1) : 1;
+        this.model = new BakeModel(bake, offsetK, regime);
+        this.recipe = bake.recipe();
+        this.settings = settings;
+        this.residueTarget = bake.limits().residue();
+        this.corner = corner;
+        this.offsetK = offsetK;
+        this.columns = model.observableNames();
+        this.tracked = new int[]{model.oSetpoint, model.oWafer, model.oPressure, model.oRelax, model.oStored};
+        this.maxValue = new double[tracked.length];
+        this.maxTime = new double[tracked.length];
+        java.util.Arrays.fill(maxValue, Double.NEGATIVE_INFINITY);
+        this.samples = new double[SAMPLES + 1][model.observableCount];
+        this.sampleTimes = new double[SAMPLES + 1];
+        this.scratchState = new double[model.dim];
+        this.scratchObs = new double[model.observableCount];
+    }
+
+    CornerResult run() {
+        List<Segment> segments = recipe.segments();
+        double[] y = model.initialState(recipe.startK());
+        double[] absTol = absoluteTolerances();
+        double rtol = settings.relativeTolerance();
+        double hNext = 0;
+        RosenbrockIntegrator stiff = null;
+        DormandPrince853Integrator explicit = null;
+        boolean useRosenbrock = model.regime == GasRegime.FULL_GAS && !settings.explicitFullGas();
+        if (useRosenbrock) {
+            stiff = new RosenbrockIntegrator(Math.max(rtol, 1e-10), absTol);
+        } else {
+            explicit = new DormandPrince853Integrator(1e-9, 1e7, absTol, fill(rtol, absTol.length));
+        }
+        OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
+            @Override
+            public int getDimension() {
+                return model.dim;
+            }
+
+            @Override
+            public double[] computeDerivatives(double t, double[] state) {
+                double[] dy = new double[state.length];
+                model.derivatives(t, state, dy);
+                return dy;
+            }
+        };
+        long[] count = new long[1];
+        for (Segment seg : segments) {
+            model.setSegment(seg);
+            if (first) {
+                model.observe(seg.startTimeS(), y, samples[SAMPLES]);
+                sampleTimes[SAMPLES] = seg.startTimeS();
+                initialObservation(samples[SAMPLES]);
+                first = false;
+            }
+            if (seg.durationS() <= 0) {
+                continue;
+            }
+            if (useRosenbrock) {
+                hNext = stiff.integrate(model::derivatives, seg.startTimeS(), y, seg.endTimeS(), hNext, this::onStep);
+            } else {
+                explicit.clearStepHandlers();
+                explicit.addStepHandler(interpolator -> onStep(new HipparchusStep(interpolator)));
+                ODEStateAndDerivative end = explicit.integrate(ode, new ODEState(seg.startTimeS(), y), seg.endTimeS());
+                y = end.getPrimaryState();
+                count[0] += explicit.getEvaluations();
+            }
+            // segment end always recorded
+            double[] last = samples[SAMPLES];
+            if (settings.sampleIntervalS() > 0 && (history.isEmpty() || history.get(history.size() - 1)[0] < last[0])) {
+                history.add(last.clone());
+            }
+        }
+        evaluations = useRosenbrock ? stiff.evaluations() : count[0];
+        double[] end = samples[SAMPLES];
+        double gasified = end[model.oGasified];
+        double balance = model.regime == GasRegime.FULL_GAS
+                ? Math.abs(gasified - end[model.oVented] - end[model.oStored]) / Math.max(gasified, 1e-300)
+                : end[model.oStored] / Math.max(gasified, 1e-300);
+        Map<String, Extremum> maxima = new LinkedHashMap<>();
+        for (int i = 0; i < tracked.length; i++) {
+            maxima.put(columns.get(tracked[i]), new Extremum(maxValue[i], maxTime[i]));
+        }
+        return new CornerResult(corner, offsetK, model.regime, qsError, maxima, timeTo1pct, timeToTarget,
+                end[model.oUnconverted], end[model.oDose], balance, columns, history, evaluations);
+    }
+
+    private static double[] fill(double v, int n) {
+        double[] a = new double[n];
+        java.util.Arrays.fill(a, v);
+        return a;
+    }
+
+    private double[] absoluteTolerances() {
+        double[] a = new double[model.dim];
+        for (int j = 0; j < model.k; j++) {
+            a[j] = 1e-12;
+        }
+        if (model.regime == GasRegime.FULL_GAS) {
+            for (int j = 0; j < model.k; j++) {
+                a[model.iGas + j] = Math.max(1e-7 * gasScale, 1e-30);
+                a[model.iVent + j] = 1e-12;
+            }
+        }
+        a[model.iDose] = 1e-6;
+        if (model.iWafer >= 0) {
+            a[model.iWafer] = 1e-6;
+        }
+        return a;
+    }
+
+    private void initialObservation(double[] obs) {
+        for (int i = 0; i < tracked.length; i++) {
+            maxValue[i] = obs[tracked[i]];
+            maxTime[i] = obs[0];
+        }
+        if (settings.sampleIntervalS() > 0) {
+            history.add(obs.clone());
+            nextSample = obs[0] + settings.sampleIntervalS();
+        }
+        checkCrossings(obs, obs, null);
+        storedPeak = obs[model.oStored];
+    }
+
+    private void onStep(StepView step) {
+        double t0 = step.start();
+        double t1 = step.end();
+        // samples[SAMPLES] holds the observation at t0 from the previous step
+        double[] tmp = samples[0];
+        samples[0] = samples[SAMPLES];
+        samples[SAMPLES] = tmp;
+        sampleTimes[0] = t0;
+        for (int i = 1; i <= SAMPLES; i++) {
+            double t = i == SAMPLES ? t1 : t0 + (t1 - t0) * i / SAMPLES;
+            sampleTimes[i] = t;
+            step.state(t, scratchState);
+            model.observe(t, scratchState, samples[i]);
+        }
+        // history on the fixed grid
+        if (settings.sampleIntervalS() > 0) {
+            while (nextSample <= t1) {
+                double[] row = new double[model.observableCount];
+                step.state(nextSample, scratchState);
+                model.observe(nextSample, scratchState, row);
+                history.add(row);
+                nextSample += settings.sampleIntervalS();
+            }
+        }
+        // maxima, refined inside the step
+        for (int c = 0; c < tracked.length; c++) {
+            int col = tracked[c];
+            int best = 0;
+            for (int i = 1; i <= SAMPLES; i++) {
+                if (samples[i][col] > samples[best][col]) {
+                    best = i;
+                }
+            }
+            double v = samples[best][col];
+            double tv = sampleTimes[best];
+            if (v > maxValue[c]) {
+                if (best > 0 && best < SAMPLES) {
+                    double[] refined = refineMax(step, col, sampleTimes[best - 1], sampleTimes[best + 1]);
+                    if (refined[1] > v) {
+                        v = refined[1];
+                        tv = refined[0];
+                    }
+                }
+                maxValue[c] = v;
+                maxTime[c] = tv;
+            }
+        }
+        // residue crossings
+        for (int i = 1; i <= SAMPLES; i++) {
+            checkCrossings(samples[i - 1], samples[i], step);
+        }
+        // quasi-steady error estimate: τ_g |d ln n/dt| where the stored gas matters
+        if (model.regime == GasRegime.QUASI_STEADY) {
+            for (int i = 1; i <= SAMPLES; i++) {
+                double n1 = samples[i][model.oStored];
+                double n0 = samples[i - 1][model.oStored];
+                storedPeak = Math.max(storedPeak, n1);
+                double dt = sampleTimes[i] - sampleTimes[i - 1];
+                if (dt > 0 && n1 > 1e-3 * storedPeak && n0 > 0) {
+                    double relax = Math.max(samples[i][model.oRelax], samples[i - 1][model.oRelax]);
+                    double est = relax * Math.abs(n1 - n0) / (dt * Math.max(n1, n0));
+                    qsError = Math.max(qsError, Double.isNaN(est) ? Double.POSITIVE_INFINITY : est);
+                }
+            }
+        }
+    }
+
+    private void checkCrossings(double[] before, double[] after, StepView step) {
+        double u1 = after[model.oUnconverted];
+        if (Double.isNaN(timeTo1pct) && u1 <= 0.01) {
+            timeTo1pct = crossing(step, before, after, 0.01);
+        }
+        if (Double.isNaN(timeToTarget) && u1 <= residueTarget) {
+            timeToTarget = crossing(step, before, after, residueTarget);
+        }
+    }
+
+    private double crossing(StepView step, double[] before, double[] after, double level) {
+        double ta = before[0];
+        double tb = after[0];
+        if (step == null || before[model.oUnconverted] <= level || tb <= ta) {
+            return tb == ta ? ta : tb;
+        }
+        BrentSolver solver = new BrentSolver(1e-9 * Math.max(1, tb), 1e-14);
+        return solver.solve(200, t -> {
+            step.state(t, scratchState);
+            model.observe(t, scratchState, scratchObs);
+            return scratchObs[model.oUnconverted] - level;
+        }, ta, tb);
+    }
+
+    /** Golden-section search for the maximum of one observable on [a, b]; returns {t, value}. */
+    private double[] refineMax(StepView step, int col, double a, double b) {
+        final double g = (Math.sqrt(5) - 1) / 2;
+        double x1 = b - g * (b - a);
+        double x2 = a + g * (b - a);
+        double f1 = valueAt(step, col, x1);
+        double f2 = valueAt(step, col, x2);
+        double tol = 1e-10 * Math.max(1, Math.abs(b));
+        for (int it = 0; it < 80 && b - a > tol; it++) {
+            if (f1 < f2) {
+                a = x1;
+                x1 = x2;
+                f1 = f2;
+                x2 = a + g * (b - a);
+                f2 = valueAt(step, col, x2);
+            } else {
+                b = x2;
+                x2 = x1;
+                f2 = f1;
+                x1 = b - g * (b - a);
+                f1 = valueAt(step, col, x1);
+            }
+        }
+        return f1 > f2 ? new double[]{x1, f1} : new double[]{x2, f2};
+    }
+
+    private double valueAt(StepView step, int col, double t) {
+        step.state(t, scratchState);
+        model.observe(t, scratchState, scratchObs);
+        return scratchObs[col];
+    }
+
+    /** Adapter from a Hipparchus step interpolator. */
+    private static final class HipparchusStep implements StepView {
+        private final ODEStateInterpolator interpolator;
+
+        HipparchusStep(ODEStateInterpolator interpolator) {
+            this.interpolator = interpolator;
+        }
+
+        @Override
+        public double start() {
+            return interpolator.getPreviousState().getTime();
+        }
+
+        @Override
+        public double end() {
+            return interpolator.getCurrentState().getTime();
+        }
+
+        @Override
+        public void state(double t, double[] out) {
+            double[] s = interpolator.getInterpolatedState(t).getPrimaryState();
+            System.arraycopy(s, 0, out, 0, out.length);
+        }
+    }
+}

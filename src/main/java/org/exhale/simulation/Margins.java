@@ -1,0 +1,63 @@
+package org.exhale.simulation;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/** Margins to every limit of a case over all simulated corners. */
+final class Margins {
+    private Margins() {
+    }
+
+    static List<Margin> evaluate(BakeCase bake, List<CornerResult> corners) {
+        Limits limits = bake.limits();
+        List<Margin> out = new ArrayList<>();
+
+        // thermal ceiling: wafer and (local) setpoint, as headroom in kelvin
+        CornerResult hot = corners.get(0);
+        Extremum worstT = null;
+        for (CornerResult c : corners) {
+            for (Extremum e : new Extremum[]{c.maxWafer(), c.maxSetpoint()}) {
+                if (worstT == null || e.value() > worstT.value()) {
+                    worstT = e;
+                    hot = c;
+                }
+            }
+        }
+        out.add(new Margin("ceiling", limits.ceilingK(), worstT.value(), limits.ceilingK() - worstT.value(),
+                worstT.timeS(), hot.corner(), "K", true, ""));
+
+        // residue at the end of the bake
+        CornerResult slow = corners.get(0);
+        for (CornerResult c : corners) {
+            if (c.finalUnconverted() > slow.finalUnconverted()) {
+                slow = c;
+            }
+        }
+        double end = slow.history().isEmpty() ? Double.NaN : slow.history().get(slow.history().size() - 1)[0];
+        out.add(Margin.ratio("residue", limits.residue(), slow.finalUnconverted(),
+                Double.isNaN(end) ? bake.recipe().durationS() : end, slow.corner(), "", ""));
+
+        if (Double.isFinite(limits.maxPressurePa())) {
+            CornerResult p = corners.get(0);
+            for (CornerResult c : corners) {
+                if (c.peakPressure().value() > p.peakPressure().value()) {
+                    p = c;
+                }
+            }
+            out.add(Margin.ratio("pressure", limits.maxPressurePa(), p.peakPressure().value(),
+                    p.peakPressure().timeS(), p.corner(), "Pa", ""));
+        }
+
+        if (limits.dose() != null) {
+            CornerResult d = corners.get(0);
+            for (CornerResult c : corners) {
+                if (c.thermalDoseS() > d.thermalDoseS()) {
+                    d = c;
+                }
+            }
+            out.add(Margin.ratio("thermal_dose", limits.dose().maxS(), d.thermalDoseS(),
+                    bake.recipe().durationS(), d.corner(), "s", ""));
+        }
+        return out;
+    }
+}

@@ -1,0 +1,43 @@
+package org.exhale.simulation;
+
+/**
+ * Numerical settings of a simulation.
+ *
+ * @param sampleIntervalS    spacing of history rows [s] (segment ends are always recorded); 0 for no history
+ * @param relativeTolerance  integrator relative tolerance
+ * @param regime             null to choose automatically (see {@link BakeSimulator}), else forced
+ * @param explicitFullGas    integrate the full-gas equations with the explicit Dormand–Prince 8(5,3)
+ *                           method instead of the Rosenbrock method (for reference solutions of
+ *                           non-stiff cases only)
+ */
+public record SimulationSettings(double sampleIntervalS, double relativeTolerance, GasRegime regime,
+                                 boolean explicitFullGas) {
+    public SimulationSettings {
+        if (!(sampleIntervalS >= 0)) {
+            throw new IllegalArgumentException("sample interval must be non-negative");
+        }
+        if (!(relativeTolerance >= 1e-14 && relativeTolerance <= 1e-2)) {
+            throw new IllegalArgumentException("relative tolerance must be in [1e-14, 1e-2]");
+        }
+    }
+
+    public static SimulationSettings defaults() {
+        return new SimulationSettings(30, 1e-8, null, false);
+    }
+
+    public SimulationSettings withSampleInterval(double s) {
+        return new SimulationSettings(s, relativeTolerance, regime, explicitFullGas);
+    }
+
+    public SimulationSettings withTolerance(double rtol) {
+        return new SimulationSettings(sampleIntervalS, rtol, regime, explicitFullGas);
+    }
+
+    public SimulationSettings withRegime(GasRegime r) {
+        return new SimulationSettings(sampleIntervalS, relativeTolerance, r, explicitFullGas);
+    }
+
+    public SimulationSettings withExplicitFullGas(boolean b) {
+        return new SimulationSettings(sampleIntervalS, relativeTolerance, regime, b);
+    }
+}
