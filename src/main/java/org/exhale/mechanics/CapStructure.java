@@ -186,8 +186,9 @@ public final class CapStructure {
     public double edgeStressPa(double temperatureK, double excessPressurePa) {
         double sigmaTh = thermalStressPa(temperatureK);
         double delta = solveDeflection(linearStiffness(sigmaTh), excessPressurePa);
-        return sigmaTh + membraneStressPaPerM2 * delta * delta
-                + bendingStressPerPa * plateStiffnessPaPerM * Math.abs(delta);
+        double sigmaB = bendingStressPerPa * (plateStiffnessPaPerM * Math.abs(delta));
+        double sigmaM = membraneStressPaPerM2 * delta * delta;
+        return sigmaTh + sigmaM + sigmaB;    // same operations as evaluate, so the same value
     }
 
     /**
