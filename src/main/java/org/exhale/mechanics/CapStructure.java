@@ -59,10 +59,10 @@ import org.hipparchus.util.FastMath;
  *   <li><b>Pre-tension stiffening.</b> Both cited bulge-test relations contain the residual-stress
  *       term; a tensile cap carries part of the pressure as a pre-tensioned membrane. For thin caps
  *       that term is not small: on a line its ratio to the plate term is σ_th w²/(4 Ē h²), about 2.5
- *       for 100 MPa in a 100 nm, 10 µm wide, 75 GPa cap. Leaving it out overestimates δ and σ_b
+ *       for 100 MPa in a 100 nm thick, 10 µm wide cap with Ē = 100 GPa. Leaving it out overestimates δ and σ_b
  *       several-fold. It is on by default and can be switched off (constructor flag) to reproduce
  *       the plain plate + stretching relation.</li>
- *   <li><b>Compression is not softening.</b> Compressive σ_th would lower the linear stiffness and
+ *   <li><b>Compression does not soften the cap here.</b> Compressive σ_th would lower the linear stiffness and
  *       make it vanish near the buckling stress; the relation above then loses its unique root and
  *       describes a buckled cap it was not made for. So compression is left out of the stiffness
  *       (K_σ uses max(σ_th, 0)) and is judged by the buckling check instead. Below buckling, the
