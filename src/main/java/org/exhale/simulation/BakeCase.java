@@ -1,13 +1,22 @@
 package org.exhale.simulation;
 
 import org.exhale.kinetics.Polymer;
+import org.exhale.mechanics.CapStructure;
+import org.exhale.mechanics.FilmProperties;
+import org.exhale.mechanics.MechanicalLimits;
 import org.exhale.recipe.Recipe;
 import org.exhale.transport.Ambient;
 import org.exhale.transport.CapFilm;
 
-/** Everything one bake needs: structure, materials, ambient, limits and the recipe. */
-public record BakeCase(String name, Polymer polymer, Cavity cavity, CapFilm cap, Ambient ambient, Wafer wafer,
-                       Limits limits, Recipe recipe) {
+/**
+ * Everything one bake needs: structure, materials, ambient, limits and the recipe.
+ *
+ * @param film             mechanical properties of the cap, or null when the cap mechanics is not checked
+ * @param substrateCtePerK thermal expansion coefficient of the substrate [1/K]
+ * @param recipe           the bake recipe, or null when the case is only to be planned
+ */
+public record BakeCase(String name, Polymer polymer, Cavity cavity, CapFilm cap, FilmProperties film,
+                       double substrateCtePerK, Ambient ambient, Wafer wafer, Limits limits, Recipe recipe) {
     public BakeCase {
         if (name == null) {
             name = "";
@@ -15,25 +24,45 @@ public record BakeCase(String name, Polymer polymer, Cavity cavity, CapFilm cap,
         if (polymer == null || cavity == null || cap == null || ambient == null || wafer == null || limits == null) {
             throw new IllegalArgumentException("a bake case needs polymer, cavity, cap, ambient, wafer and limits");
         }
+        if (!(substrateCtePerK >= -1e-4 && substrateCtePerK < 1e-3)) {
+            throw new IllegalArgumentException("substrate CTE must be in (-100, 1000) ppm/K");
+        }
     }
 
     public BakeCase withRecipe(Recipe r) {
-        return new BakeCase(name, polymer, cavity, cap, ambient, wafer, limits, r);
+        return new BakeCase(name, polymer, cavity, cap, film, substrateCtePerK, ambient, wafer, limits, r);
     }
 
     public BakeCase withCap(CapFilm c) {
-        return new BakeCase(name, polymer, cavity, c, ambient, wafer, limits, recipe);
+        return new BakeCase(name, polymer, cavity, c, film, substrateCtePerK, ambient, wafer, limits, recipe);
     }
 
     public BakeCase withPolymer(Polymer p) {
-        return new BakeCase(name, p, cavity, cap, ambient, wafer, limits, recipe);
+        return new BakeCase(name, p, cavity, cap, film, substrateCtePerK, ambient, wafer, limits, recipe);
     }
 
     public BakeCase withWafer(Wafer w) {
-        return new BakeCase(name, polymer, cavity, cap, ambient, w, limits, recipe);
+        return new BakeCase(name, polymer, cavity, cap, film, substrateCtePerK, ambient, w, limits, recipe);
     }
 
     public BakeCase withLimits(Limits l) {
-        return new BakeCase(name, polymer, cavity, cap, ambient, wafer, l, recipe);
+        return new BakeCase(name, polymer, cavity, cap, film, substrateCtePerK, ambient, wafer, l, recipe);
+    }
+
+    public BakeCase withFilm(FilmProperties f) {
+        return new BakeCase(name, polymer, cavity, cap, f, substrateCtePerK, ambient, wafer, limits, recipe);
+    }
+
+    public BakeCase withAmbient(Ambient a) {
+        return new BakeCase(name, polymer, cavity, cap, film, substrateCtePerK, a, wafer, limits, recipe);
+    }
+
+    /** The cap as a structure, or null when no mechanical properties are given. */
+    public CapStructure capStructure() {
+        if (film == null) {
+            return null;
+        }
+        return new CapStructure(film, cap.thicknessM(), cavity.span(), substrateCtePerK,
+                new MechanicalLimits(limits.safetyFactor(), limits.maxDeflectionM()));
     }
 }

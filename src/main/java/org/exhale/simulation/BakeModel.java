@@ -8,6 +8,8 @@ import org.exhale.kinetics.Component;
 import org.exhale.kinetics.Polymer;
 import org.exhale.kinetics.Product;
 import org.exhale.kinetics.ReactionModel;
+import org.exhale.mechanics.CapResponse;
+import org.exhale.mechanics.CapStructure;
 import org.exhale.recipe.Segment;
 import org.exhale.transport.GasTransport;
 
@@ -47,6 +49,7 @@ final class BakeModel {
     private final double doseInvRef;
     private final boolean hasDose;
     private final List<String> names;
+    private final CapStructure structure;
 
     private Segment segment;
 
@@ -70,6 +73,13 @@ final class BakeModel {
     final int oStored;
     final int oGasified;
     final int oVented;
+    /** First mechanics column, or −1 without cap mechanics. */
+    final int oFilmStress;
+    final int oEdgeStress;
+    final int oDeflection;
+    final int oCrack;
+    final int oDelam;
+    final int oCompression;
     final int observableCount;
 
     BakeModel(BakeCase bake, double offsetK, GasRegime regime) {
@@ -137,7 +147,20 @@ final class BakeModel {
         oStored = oDose + 1;
         oGasified = oStored + 1;
         oVented = oGasified + 1;
-        observableCount = oVented + 1;
+        structure = bake.capStructure();
+        if (structure != null) {
+            oFilmStress = oVented + 1;
+            // film, bending, membrane, edge, deflection, crack, delam, compression
+            oEdgeStress = oFilmStress + 3;
+            oDeflection = oFilmStress + 4;
+            oCrack = oFilmStress + 5;
+            oDelam = oFilmStress + 6;
+            oCompression = oFilmStress + 7;
+            observableCount = oFilmStress + 8;
+        } else {
+            oFilmStress = oEdgeStress = oDeflection = oCrack = oDelam = oCompression = -1;
+            observableCount = oVented + 1;
+        }
     }
 
     GasTransport transport() {
@@ -168,6 +191,10 @@ final class BakeModel {
         out.add("stored_mol_m2");
         out.add("gasified_mol_m2");
         out.add("vented_mol_m2");
+        if (structure != null) {
+            out.addAll(List.of("film_stress_Pa", "bending_stress_Pa", "membrane_stress_Pa", "edge_stress_Pa",
+                    "deflection_m", "crack_release_J_m2", "delamination_release_J_m2", "compression_Pa"));
+        }
         return out;
     }
 
@@ -285,6 +312,21 @@ final class BakeModel {
         out[oStored] = stored;
         out[oGasified] = gasified;
         out[oVented] = vented;
+        if (structure != null) {
+            CapResponse r = structure.evaluate(temp, dp);
+            out[oFilmStress] = r.thermalStressPa();
+            out[oFilmStress + 1] = r.bendingStressPa();
+            out[oFilmStress + 2] = r.membraneStressPa();
+            out[oEdgeStress] = r.edgeStressPa();
+            out[oDeflection] = r.deflectionM();
+            out[oCrack] = r.channelCrackingJPerM2();
+            out[oDelam] = r.delaminationJPerM2();
+            out[oCompression] = r.bucklingCompressionPa();
+        }
+    }
+
+    CapStructure structure() {
+        return structure;
     }
 
     /** Gasifiable moles per area of the whole polymer, Σ m0 w_j (1 − c_j)/M_j [mol/m²]. */

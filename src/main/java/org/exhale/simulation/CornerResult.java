@@ -11,6 +11,7 @@ import java.util.Map;
  * @param regime             the gas regime used
  * @param quasiSteadyError   estimated relative error of the quasi-steady pressure, max τ_g |d ln n/dt|
  * @param maxima             the largest value and its time of each tracked quantity, by history column
+ * @param atMaximum          the whole history row at each of those maxima
  * @param timeTo1pctS        first time the unconverted fraction reaches 1 %
  * @param timeToTargetS      first time it reaches the residue target
  * @param finalUnconverted   unconverted fraction at the end
@@ -21,13 +22,13 @@ import java.util.Map;
  * @param evaluations        right-hand-side evaluations
  */
 public record CornerResult(String corner, double offsetK, GasRegime regime, double quasiSteadyError,
-                           Map<String, Extremum> maxima, double timeTo1pctS, double timeToTargetS,
+                           Map<String, Extremum> maxima, Map<String, double[]> atMaximum, double timeTo1pctS, double timeToTargetS,
                            double finalUnconverted, double thermalDoseS, double massBalanceError,
                            List<String> columns, List<double[]> history, long evaluations) {
 
     /** A copy carrying the quasi-steady error estimate of the pre-run that chose this regime. */
     public CornerResult withQuasiSteadyError(double error) {
-        return new CornerResult(corner, offsetK, regime, error, maxima, timeTo1pctS, timeToTargetS, finalUnconverted,
+        return new CornerResult(corner, offsetK, regime, error, maxima, atMaximum, timeTo1pctS, timeToTargetS, finalUnconverted,
                 thermalDoseS, massBalanceError, columns, history, evaluations);
     }
 

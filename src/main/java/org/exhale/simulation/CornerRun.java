@@ -34,6 +34,7 @@ final class CornerRun {
     private final int[] tracked;
     private final double[] maxValue;
     private final double[] maxTime;
+    private final double[][] maxRow;
     private final double[][] samples;
     private final double[] sampleTimes;
     private final double[] scratchState;
@@ -63,9 +64,13 @@ final class CornerRun {
         this.corner = corner;
         this.offsetK = offsetK;
         this.columns = model.observableNames();
-        this.tracked = new int[]{model.oSetpoint, model.oWafer, model.oPressure, model.oRelax, model.oStored};
+        this.tracked = model.structure() == null
+                ? new int[]{model.oSetpoint, model.oWafer, model.oPressure, model.oRelax, model.oStored}
+                : new int[]{model.oSetpoint, model.oWafer, model.oPressure, model.oRelax, model.oStored,
+                            model.oEdgeStress, model.oDeflection, model.oCrack, model.oDelam, model.oCompression};
         this.maxValue = new double[tracked.length];
         this.maxTime = new double[tracked.length];
+        this.maxRow = new double[tracked.length][];
         java.util.Arrays.fill(maxValue, Double.NEGATIVE_INFINITY);
         this.samples = new double[SAMPLES + 1][model.observableCount];
         this.sampleTimes = new double[SAMPLES + 1];
@@ -134,10 +139,12 @@ final class CornerRun {
                 ? Math.abs(gasified - end[model.oVented] - end[model.oStored]) / Math.max(gasified, 1e-300)
                 : end[model.oStored] / Math.max(gasified, 1e-300);
         Map<String, Extremum> maxima = new LinkedHashMap<>();
+        Map<String, double[]> rows = new LinkedHashMap<>();
         for (int i = 0; i < tracked.length; i++) {
             maxima.put(columns.get(tracked[i]), new Extremum(maxValue[i], maxTime[i]));
+            rows.put(columns.get(tracked[i]), maxRow[i]);
         }
-        return new CornerResult(corner, offsetK, model.regime, qsError, maxima, timeTo1pct, timeToTarget,
+        return new CornerResult(corner, offsetK, model.regime, qsError, maxima, rows, timeTo1pct, timeToTarget,
                 end[model.oUnconverted], end[model.oDose], balance, columns, history, evaluations);
     }
 
@@ -169,6 +176,7 @@ final class CornerRun {
         for (int i = 0; i < tracked.length; i++) {
             maxValue[i] = obs[tracked[i]];
             maxTime[i] = obs[0];
+            maxRow[i] = obs.clone();
         }
         if (settings.sampleIntervalS() > 0) {
             history.add(obs.clone());
@@ -223,6 +231,10 @@ final class CornerRun {
                 }
                 maxValue[c] = v;
                 maxTime[c] = tv;
+                step.state(tv, scratchState);
+                double[] row = new double[model.observableCount];
+                model.observe(tv, scratchState, row);
+                maxRow[c] = row;
             }
         }
         // residue crossings

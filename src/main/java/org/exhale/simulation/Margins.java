@@ -3,6 +3,8 @@ package org.exhale.simulation;
 import java.util.ArrayList;
 import java.util.List;
 
+import org.exhale.mechanics.CapStructure;
+
 /** Margins to every limit of a case over all simulated corners. */
 final class Margins {
     private Margins() {
@@ -58,6 +60,41 @@ final class Margins {
             out.add(Margin.ratio("thermal_dose", limits.dose().maxS(), d.thermalDoseS(),
                     bake.recipe().durationS(), d.corner(), "s", ""));
         }
+        CapStructure cap = bake.capStructure();
+        if (cap != null) {
+            mechanical(out, corners, "strength", cap.allowedStressPa(), "edge_stress_Pa", "Pa");
+            mechanical(out, corners, "cracking", cap.allowedCrackingJPerM2(), "crack_release_J_m2", "J/m2");
+            mechanical(out, corners, "delamination", cap.allowedDelaminationJPerM2(), "delamination_release_J_m2",
+                    "J/m2");
+            mechanical(out, corners, "buckling", cap.bucklingStressPa(), "compression_Pa", "Pa");
+            mechanical(out, corners, "deflection", cap.maxDeflectionM(), "deflection_m", "m");
+        }
         return out;
+    }
+
+    private static void mechanical(List<Margin> out, List<CornerResult> corners, String limit, double allowed,
+                                   String column, String unit) {
+        if (!Double.isFinite(allowed)) {
+            return;
+        }
+        CornerResult worst = corners.get(0);
+        for (CornerResult c : corners) {
+            if (c.max(column).value() > worst.max(column).value()) {
+                worst = c;
+            }
+        }
+        Extremum e = worst.max(column);
+        double[] row = worst.atMaximum().get(column);
+        String detail = "";
+        if (row != null && !limit.equals("buckling")) {
+            int f = worst.column("film_stress_Pa");
+            double th = Math.abs(row[f]);
+            double b = Math.abs(row[f + 1]);
+            double m = Math.abs(row[f + 2]);
+            detail = th >= b && th >= m ? "thermal" : b >= m ? "bending" : "membrane";
+        } else if (limit.equals("buckling")) {
+            detail = "thermal";
+        }
+        out.add(Margin.ratio(limit, allowed, Math.max(e.value(), 0), e.timeS(), worst.corner(), unit, detail));
     }
 }

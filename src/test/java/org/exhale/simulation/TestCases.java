@@ -6,6 +6,8 @@ import org.exhale.kinetics.Component;
 import org.exhale.kinetics.Polymer;
 import org.exhale.kinetics.Product;
 import org.exhale.kinetics.ReactionModel;
+import org.exhale.mechanics.FilmProperties;
+import org.exhale.mechanics.SpanGeometry.Shape;
 import org.exhale.recipe.Recipe;
 import org.exhale.recipe.Step;
 import org.exhale.transport.Ambient;
@@ -39,8 +41,9 @@ public final class TestCases {
     /** Porous nanometre cap over interconnect lines, nitrogen at 1 atm. */
     public static BakeCase porousLine() {
         return new BakeCase("porous line", twoComponentPolymer(),
-                new Cavity(CavityShape.LINE, 100e-9, 100e-9, 200e-9),
+                new Cavity(Shape.LINE, 100e-9, 100e-9, 200e-9),
                 new CapFilm(120e-9, 0.30, 1.5e-9, Double.NaN, 0, 0),
+                new FilmProperties(8e9, 0.25, 12e-6, c(350), 40e6, 150e6, 4, 3), 2.6e-6,
                 new Ambient(101_325, 3.0e-5, c(25), 101_325),
                 Wafer.ideal(),
                 new Limits(c(400), 0.005, 50e3, new ThermalDose(100e3, c(400), 7200), 2, 20e-9),
@@ -50,8 +53,9 @@ public final class TestCases {
     /** Nearly dense cap (solid-state permeation only) over a wide MEMS disc cavity, in vacuum. */
     public static BakeCase denseDisc() {
         return new BakeCase("dense disc", twoComponentPolymer(),
-                new Cavity(CavityShape.DISC, 200e-6, 200e-6, 2e-6),
+                new Cavity(Shape.DISC, 200e-6, 200e-6, 2e-6),
                 new CapFilm(2e-6, 0.0, 0, Double.NaN, 2.0e-15, 20e3),
+                new FilmProperties(120e9, 0.25, 3e-6, c(400), 100e6, 1e9, 10, 5), 2.6e-6,
                 new Ambient(0, 3.0e-5, c(25), 101_325),
                 Wafer.ideal(),
                 new Limits(c(400), 0.005, 500e3, null, 2, 20e-6),
