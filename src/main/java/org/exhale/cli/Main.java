@@ -1,7 +1,80 @@
 package org.exhale.cli;
 
-public final class Main {
+import java.io.PrintWriter;
+
+import org.exhale.io.InputException;
+
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The exhale command line. */
+@Command(name = "exhale", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
+        header = "Bake recipes for sacrificial-polymer air gaps and cavities under porous caps.",
+        description = {"Simulates decomposition of the sacrificial polymer, transport of its products through the cap, "
+                + "the trapped pressure and the cap's stresses; plans the shortest recipe that meets every limit; "
+                + "fits kinetics from thermogravimetric runs.",
+                "Predictions are estimates: confirm recipes on test wafers and follow your site's safety rules."},
+        subcommands = {SimulateCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
+        footer = {"", "Exit codes: 0 all limits met; 1 internal error; 2 bad input; 3 a limit is violated; "
+                + "4 no feasible recipe."})
+public final class Main implements Runnable {
+    public static final int OK = 0;
+    public static final int INTERNAL = 1;
+    public static final int BAD_INPUT = 2;
+    public static final int VIOLATED = 3;
+    public static final int INFEASIBLE = 4;
+
+    @Override
+    public void run() {
+        new CommandLine(this).usage(System.out);
+    }
+
     public static void main(String[] args) {
-        System.out.println("exhale");
+        System.exit(execute(args));
+    }
+
+    /** Runs the command line and returns the exit code (no System.exit; used by tests). */
+    public static int execute(String... args) {
+        return commandLine().execute(args);
+    }
+
+    public static CommandLine commandLine() {
+        CommandLine cl = new CommandLine(new Main());
+        cl.setExecutionExceptionHandler(Main::handle);
+        cl.setParameterExceptionHandler((ex, a) -> {
+            PrintWriter err = ex.getCommandLine().getErr();
+            err.println("error: " + ex.getMessage());
+            err.println("Try '" + ex.getCommandLine().getCommandSpec().qualifiedName() + " --help'.");
+            return BAD_INPUT;
+        });
+        return cl;
+    }
+
+    private static int handle(Exception ex, CommandLine cl, CommandLine.ParseResult parse) {
+        PrintWriter err = cl.getErr();
+        boolean debug = parse != null && hasDebug(parse);
+        if (ex instanceof InputException ie) {
+            err.println("error: " + ie.getMessage());
+            if (debug) {
+                ex.printStackTrace(err);
+            }
+            return BAD_INPUT;
+        }
+        err.println("internal error: " + ex + (debug ? "" : " (run with --debug for details)"));
+        if (debug) {
+            ex.printStackTrace(err);
+        }
+        return INTERNAL;
+    }
+
+    private static boolean hasDebug(CommandLine.ParseResult parse) {
+        CommandLine.ParseResult p = parse;
+        while (p != null) {
+            if (p.hasMatchedOption("--debug")) {
+                return true;
+            }
+            p = p.subcommand();
+        }
+        return false;
     }
 }

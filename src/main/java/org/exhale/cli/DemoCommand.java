@@ -1,0 +1,44 @@
+package org.exhale.cli;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+
+import org.exhale.io.ErrorKind;
+import org.exhale.io.InputException;
+
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+@Command(name = "demo", mixinStandardHelpOptions = true,
+        header = "Run the main job on the bundled demo cases.",
+        description = "Runs the bundled demo cases of data/demo (an invented scenario) and writes results to "
+                + "out/demo/<case>, replacing earlier demo results.")
+final class DemoCommand implements Callable<Integer> {
+    static final List<String> CASES = List.of("porous-line.yaml", "dense-disc.yaml");
+
+    @Option(names = "--data", paramLabel = "DIR", defaultValue = "data/demo", description = "Folder of the demo cases.")
+    Path data;
+
+    @Override
+    public Integer call() {
+        int worst = Main.OK;
+        for (String c : CASES) {
+            Path p = data.resolve(c);
+            if (!Files.isRegularFile(p)) {
+                throw new InputException(ErrorKind.FILE_UNREADABLE, p.toString(), "", 0,
+                        "demo case not found; run from the project folder or pass --data");
+            }
+            System.out.println("=== " + p + " ===");
+            String name = c.replace(".yaml", "");
+            int code = new CommandLine(new SimulateCommand()).setExecutionExceptionHandler((e, cl, pr) -> {
+                throw e;
+            }).execute(p.toString(), "-o", "out/demo/" + name, "--force");
+            System.out.println();
+            worst = Math.max(worst, code == Main.VIOLATED ? Main.OK : code);
+        }
+        return worst;
+    }
+}

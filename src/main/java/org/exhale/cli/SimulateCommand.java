@@ -1,0 +1,86 @@
+package org.exhale.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+
+import org.exhale.io.CaseFile;
+import org.exhale.io.CaseYamlReader;
+import org.exhale.io.ErrorKind;
+import org.exhale.io.HistoryCsvWriter;
+import org.exhale.io.InputException;
+import org.exhale.io.OutputFolder;
+import org.exhale.io.Quantities;
+import org.exhale.io.SummaryJsonWriter;
+import org.exhale.io.UnitKind;
+import org.exhale.report.Cautions;
+import org.exhale.report.TextSummary;
+import org.exhale.simulation.BakeResult;
+import org.exhale.simulation.BakeSimulator;
+import org.exhale.simulation.SimulationSettings;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+@Command(name = "simulate", mixinStandardHelpOptions = true,
+        header = "Simulate the case's recipe and check every limit.",
+        description = {"Integrates decomposition, gas transport through the cap and cap mechanics through the recipe "
+                + "at every wafer corner; writes DIR/history.csv and DIR/summary.json and prints a summary.",
+                "Exit 0 when every limit holds, 3 when one is violated, 2 on bad input."})
+final class SimulateCommand implements Callable<Integer> {
+    @Parameters(index = "0", paramLabel = "CASE", description = "Case file (YAML).")
+    Path casePath;
+
+    @Option(names = {"-o", "--output"}, paramLabel = "DIR", description = "Output folder (default: out/<case file name>).")
+    Path output;
+
+    @Option(names = "--sample", paramLabel = "TIME", defaultValue = "30 s",
+            description = "History sample interval, e.g. '10 s', '1 min' (default: ${DEFAULT-VALUE}).")
+    String sample;
+
+    @Mixin
+    CommonOptions common;
+
+    @Override
+    public Integer call() {
+        double interval = parseTime(sample, "--sample");
+        CaseFile cf = CaseYamlReader.read(casePath);
+        if (cf.bake().recipe() == null) {
+            throw new InputException(ErrorKind.MISSING_KEY, casePath.toString(), "recipe", 0,
+                    "the case has no recipe to simulate (use 'exhale plan' to make one)");
+        }
+        OutputFolder out = new OutputFolder(output != null ? output : defaultOutput(casePath), common.force);
+        out.checkWritable();
+        BakeResult r = BakeSimulator.simulate(cf.bake(), SimulationSettings.defaults().withSampleInterval(interval));
+        List<String> warnings = new ArrayList<>(cf.warnings());
+        out.put("history.csv", HistoryCsvWriter.write(r));
+        out.put("summary.json", SummaryJsonWriter.toJson(SummaryJsonWriter.summary(r, warnings)));
+        out.commit();
+        if (!common.quiet) {
+            System.out.print(TextSummary.of(r, warnings));
+            System.out.println("Wrote " + out.dir().resolve("history.csv") + " and summary.json");
+            Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+        }
+        return r.feasible() ? Main.OK : Main.VIOLATED;
+    }
+
+    static Path defaultOutput(Path casePath) {
+        String n = casePath.getFileName().toString().replaceFirst("\\.(ya?ml)$", "");
+        return Path.of("out", n);
+    }
+
+    static double parseTime(String text, String option) {
+        try {
+            double v = Quantities.parse(text, UnitKind.TIME, false);
+            if (!(v > 0)) {
+                throw new IllegalArgumentException("must be positive");
+            }
+            return v;
+        } catch (IllegalArgumentException e) {
+            throw new InputException(ErrorKind.BAD_ARGUMENT, "command line", option, 0, e.getMessage());
+        }
+    }
+}

@@ -1,0 +1,118 @@
+package org.exhale.io;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+import org.exhale.PhysicalConstants;
+import org.exhale.report.Cautions;
+import org.exhale.simulation.BakeResult;
+import org.exhale.simulation.CornerResult;
+import org.exhale.simulation.Extremum;
+import org.exhale.simulation.Margin;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+
+/** Writes the headline figures and margins of a simulated bake as JSON (non-finite numbers as null). */
+public final class SummaryJsonWriter {
+    private static final ObjectMapper MAPPER = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+
+    private SummaryJsonWriter() {
+    }
+
+    public static Map<String, Object> summary(BakeResult r, List<String> warnings) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("case", r.bake().name());
+        CornerResult pc = r.pressureCorner();
+        m.put("peak_excess_pressure_Pa", num(pc.peakPressure().value()));
+        m.put("peak_excess_pressure_time_s", num(pc.peakPressure().timeS()));
+        m.put("time_to_1pct_s", num(r.timeTo1pctS()));
+        m.put("time_to_target_s", num(r.timeToTargetS()));
+        m.put("final_unconverted", num(r.finalUnconverted()));
+        m.put("max_wafer_temperature_C", num(r.maxWaferTemperatureK() - PhysicalConstants.ZERO_CELSIUS_K));
+        m.put("thermal_dose_s", r.bake().limits().dose() == null ? null : num(r.thermalDoseS()));
+        m.put("gas_regime", r.regime().label());
+        m.put("mass_balance_error", num(r.massBalanceError()));
+        if (r.bake().film() != null) {
+            m.put("peak_cap_stress_Pa", num(maxOver(r, "edge_stress_Pa").value()));
+            m.put("peak_deflection_m", num(maxOver(r, "deflection_m").value()));
+        }
+        m.put("recipe_duration_s", num(r.bake().recipe().durationS()));
+        m.put("seed_conversion", r.bake().polymer().seedConversion());
+        m.put("all_limits_met", r.feasible());
+        m.put("margins", margins(r.margins()));
+        List<Object> corners = new ArrayList<>();
+        for (CornerResult c : r.corners()) {
+            Map<String, Object> cm = new LinkedHashMap<>();
+            cm.put("corner", c.corner());
+            cm.put("offset_K", c.offsetK());
+            cm.put("gas_regime", c.regime().label());
+            cm.put("quasi_steady_error_estimate", num(c.quasiSteadyError()));
+            cm.put("peak_excess_pressure_Pa", num(c.peakPressure().value()));
+            cm.put("peak_excess_pressure_time_s", num(c.peakPressure().timeS()));
+            cm.put("max_relaxation_time_s", num(c.max("relaxation_time_s").value()));
+            cm.put("time_to_1pct_s", num(c.timeTo1pctS()));
+            cm.put("time_to_target_s", num(c.timeToTargetS()));
+            cm.put("final_unconverted", num(c.finalUnconverted()));
+            cm.put("thermal_dose_s", num(c.thermalDoseS()));
+            cm.put("mass_balance_error", num(c.massBalanceError()));
+            cm.put("rhs_evaluations", c.evaluations());
+            corners.add(cm);
+        }
+        m.put("corners", corners);
+        m.put("warnings", warnings);
+        m.put("cautions", Cautions.BAKE);
+        return m;
+    }
+
+    public static Map<String, Object> margins(List<Margin> margins) {
+        Map<String, Object> out = new LinkedHashMap<>();
+        for (Margin g : margins) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            boolean kelvin = g.unit().equals("K");
+            e.put("allowed", kelvin ? num(g.allowed() - PhysicalConstants.ZERO_CELSIUS_K) : num(g.allowed()));
+            e.put("actual", kelvin ? num(g.actual() - PhysicalConstants.ZERO_CELSIUS_K) : num(g.actual()));
+            e.put("unit", kelvin ? "C" : g.unit());
+            if (g.headroom()) {
+                e.put("headroom_K", num(g.margin()));
+            } else {
+                e.put("margin", num(g.margin()));
+            }
+            e.put("holds", g.holds());
+            e.put("time_s", num(g.timeS()));
+            e.put("corner", g.corner());
+            if (!g.detail().isEmpty()) {
+                e.put("dominant", g.detail());
+            }
+            out.put(g.limit(), e);
+        }
+        return out;
+    }
+
+    private static Extremum maxOver(BakeResult r, String column) {
+        Extremum best = null;
+        for (CornerResult c : r.corners()) {
+            Extremum e = c.max(column);
+            if (best == null || e.value() > best.value()) {
+                best = e;
+            }
+        }
+        return best;
+    }
+
+    /** A finite number, or null. */
+    public static Double num(double v) {
+        return Double.isFinite(v) ? v : null;
+    }
+
+    public static String toJson(Object tree) {
+        try {
+            return MAPPER.writeValueAsString(tree) + "\n";
+        } catch (JsonProcessingException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+}

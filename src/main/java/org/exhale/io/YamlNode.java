@@ -1,0 +1,257 @@
+package org.exhale.io;
+
+import java.util.ArrayList;
+import java.util.IdentityHashMap;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+
+import org.yaml.snakeyaml.nodes.MappingNode;
+import org.yaml.snakeyaml.nodes.Node;
+import org.yaml.snakeyaml.nodes.NodeTuple;
+import org.yaml.snakeyaml.nodes.ScalarNode;
+import org.yaml.snakeyaml.nodes.SequenceNode;
+
+/**
+ * A located view of a composed YAML node: every accessor knows the file, the key path and the
+ * line, so that every error names all three. Mappings remember which keys were read; {@link #finish()}
+ * rejects the rest as unknown keys with a did-you-mean.
+ */
+public final class YamlNode {
+    private final String file;
+    private final String path;
+    private final Node node;
+    private final Map<String, NodeTuple> entries;
+    private final Set<String> allowed = new LinkedHashSet<>();
+    private final Set<Node> seen;
+
+    private YamlNode(String file, String path, Node node, Set<Node> seen) {
+        this.file = file;
+        this.path = path;
+        this.node = node;
+        this.seen = seen;
+        if (!seen.add(node) && !(node instanceof ScalarNode)) {
+            throw error(ErrorKind.TOO_LARGE, "YAML aliases of mappings and lists are not accepted");
+        }
+        if (node instanceof MappingNode m) {
+            entries = new LinkedHashMap<>();
+            for (NodeTuple t : m.getValue()) {
+                if (!(t.getKeyNode() instanceof ScalarNode k)) {
+                    throw new InputException(ErrorKind.WRONG_TYPE, file, path, line(t.getKeyNode()),
+                            "keys must be plain names");
+                }
+                if (entries.put(k.getValue(), t) != null) {
+                    throw new InputException(ErrorKind.DUPLICATE_KEY, file, join(path, k.getValue()), line(k),
+                            "key '" + k.getValue() + "' appears twice");
+                }
+            }
+        } else {
+            entries = Map.of();
+        }
+    }
+
+    static YamlNode root(String file, Node node) {
+        return new YamlNode(file, "", node, java.util.Collections.newSetFromMap(new IdentityHashMap<>()));
+    }
+
+    private static String join(String path, String key) {
+        return path.isEmpty() ? key : path + "." + key;
+    }
+
+    private static int line(Node n) {
+        return n.getStartMark() == null ? 0 : n.getStartMark().getLine() + 1;
+    }
+
+    public String file() {
+        return file;
+    }
+
+    public String path() {
+        return path;
+    }
+
+    public int line() {
+        return line(node);
+    }
+
+    public InputException error(ErrorKind kind, String what) {
+        return new InputException(kind, file, path, line(), what);
+    }
+
+    public boolean isMapping() {
+        return node instanceof MappingNode;
+    }
+
+    public boolean isList() {
+        return node instanceof SequenceNode;
+    }
+
+    public boolean isScalar() {
+        return node instanceof ScalarNode;
+    }
+
+    /** Declares keys that are allowed here even when not read. */
+    public YamlNode allow(String... keys) {
+        allowed.addAll(List.of(keys));
+        return this;
+    }
+
+    public boolean has(String key) {
+        allowed.add(key);
+        NodeTuple t = entries.get(key);
+        return t != null && !isNull(t.getValueNode());
+    }
+
+    private static boolean isNull(Node n) {
+        return n instanceof ScalarNode s && s.getTag().getValue().endsWith(":null");
+    }
+
+    public Set<String> keys() {
+        return entries.keySet();
+    }
+
+    /** The child at {@code key}; it must be present. */
+    public YamlNode get(String key) {
+        allowed.add(key);
+        NodeTuple t = entries.get(key);
+        if (t == null || isNull(t.getValueNode())) {
+            if (!isMapping()) {
+                throw error(ErrorKind.WRONG_TYPE, "expected a mapping of keys, found " + describe());
+            }
+            throw error(ErrorKind.MISSING_KEY, "missing key '" + key + "'");
+        }
+        return new YamlNode(file, join(path, key), t.getValueNode(), seen);
+    }
+
+    /** A mapping child; must be present and be a mapping. */
+    public YamlNode section(String key) {
+        YamlNode c = get(key);
+        if (!c.isMapping()) {
+            throw c.error(ErrorKind.WRONG_TYPE, "expected a mapping of keys, found " + c.describe());
+        }
+        return c;
+    }
+
+    /** The list items; must be present and be a list. */
+    public List<YamlNode> list(String key) {
+        YamlNode c = get(key);
+        return c.items();
+    }
+
+    public List<YamlNode> items() {
+        if (!(node instanceof SequenceNode s)) {
+            throw error(ErrorKind.WRONG_TYPE, "expected a list, found " + describe());
+        }
+        List<YamlNode> out = new ArrayList<>();
+        int i = 0;
+        for (Node n : s.getValue()) {
+            out.add(new YamlNode(file, path + "[" + (++i) + "]", n, seen));
+        }
+        return out;
+    }
+
+    /** This node's text; must be a scalar. */
+    public String text() {
+        if (!(node instanceof ScalarNode s)) {
+            throw error(ErrorKind.WRONG_TYPE, "expected a single value, found " + describe());
+        }
+        return s.getValue();
+    }
+
+    public String string(String key) {
+        return get(key).text();
+    }
+
+    public String string(String key, String fallback) {
+        return has(key) ? string(key) : fallback;
+    }
+
+    /** A quantity of the given kind, converted to SI. */
+    public double quantity(UnitKind kind) {
+        try {
+            return Quantities.parse(text(), kind, false);
+        } catch (IllegalArgumentException e) {
+            throw error(e.getMessage().contains("unit") ? ErrorKind.BAD_UNIT : ErrorKind.BAD_NUMBER, e.getMessage());
+        }
+    }
+
+    public double quantity(String key, UnitKind kind) {
+        return get(key).quantity(kind);
+    }
+
+    public double quantity(String key, UnitKind kind, double fallback) {
+        return has(key) ? quantity(key, kind) : fallback;
+    }
+
+    /** A quantity within [lo, hi] (SI), with the message saying the allowed range in the user's words. */
+    public double quantity(String key, UnitKind kind, double fallback, double lo, double hi, String range) {
+        if (!has(key)) {
+            return fallback;
+        }
+        YamlNode c = get(key);
+        double v = c.quantity(kind);
+        if (!(v >= lo && v <= hi)) {
+            throw c.error(ErrorKind.OUT_OF_RANGE, "'" + c.text() + "' is out of range, expected " + range);
+        }
+        return v;
+    }
+
+    public double requiredQuantity(String key, UnitKind kind, double lo, double hi, String range) {
+        get(key);
+        return quantity(key, kind, Double.NaN, lo, hi, range);
+    }
+
+    /** A plain number (no unit) within [lo, hi]. */
+    public double number(String key, double fallback, double lo, double hi) {
+        if (!has(key)) {
+            return fallback;
+        }
+        YamlNode c = get(key);
+        double v;
+        try {
+            v = Quantities.parseNumber(c.text());
+        } catch (IllegalArgumentException e) {
+            throw c.error(ErrorKind.BAD_NUMBER, e.getMessage());
+        }
+        if (!(v >= lo && v <= hi)) {
+            throw c.error(ErrorKind.OUT_OF_RANGE, "'" + c.text() + "' is out of range, expected a number in ["
+                    + fmt(lo) + ", " + fmt(hi) + "]");
+        }
+        return v;
+    }
+
+    private static String fmt(double v) {
+        return v == Math.rint(v) && Math.abs(v) < 1e15 ? String.valueOf((long) v) : String.valueOf(v);
+    }
+
+    /** A required plain number within [lo, hi]. */
+    public double requiredNumber(String key, double lo, double hi) {
+        get(key);
+        return number(key, Double.NaN, lo, hi);
+    }
+
+    /** Rejects keys of this mapping that were never asked for. */
+    public void finish() {
+        for (Map.Entry<String, NodeTuple> e : entries.entrySet()) {
+            if (!allowed.contains(e.getKey())) {
+                String best = Names.closest(e.getKey(), allowed);
+                throw new InputException(ErrorKind.UNKNOWN_KEY, file, join(path, e.getKey()),
+                        line(e.getValue().getKeyNode()), "unknown key '" + e.getKey() + "'"
+                        + (best != null ? " (did you mean '" + best + "'?)" : "")
+                        + (allowed.isEmpty() ? "" : "; known keys: " + String.join(", ", allowed)));
+            }
+        }
+    }
+
+    public String describe() {
+        if (node instanceof MappingNode) {
+            return "a mapping";
+        }
+        if (node instanceof SequenceNode) {
+            return "a list";
+        }
+        return "'" + ((ScalarNode) node).getValue() + "'";
+    }
+}
