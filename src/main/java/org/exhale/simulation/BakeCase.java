@@ -65,4 +65,12 @@ public record BakeCase(String name, Polymer polymer, Cavity cavity, CapFilm cap,
         return new CapStructure(film, cap.thicknessM(), cavity.span(), substrateCtePerK,
                 new MechanicalLimits(limits.safetyFactor(), limits.maxDeflectionM()));
     }
+
+    /** The start setpoint of the recipe; the planner keeps it. */
+    public double recipeStartK() {
+        if (recipe == null) {
+            throw new IllegalArgumentException("the case has no recipe, so no start temperature");
+        }
+        return recipe.startK();
+    }
 }
