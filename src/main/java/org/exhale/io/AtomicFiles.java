@@ -20,6 +20,12 @@ public final class AtomicFiles {
             tmp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
             Files.writeString(tmp, content, StandardCharsets.UTF_8);
             try {
+                // createTempFile makes owner-only files; outputs are meant to be shared like any other file.
+                Files.setPosixFilePermissions(tmp, java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
+            } catch (UnsupportedOperationException notPosix) {
+                // keep the platform default
+            }
+            try {
                 Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
             } catch (AtomicMoveNotSupportedException e) {
                 Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
