@@ -1,0 +1,104 @@
+package org.exhale.io;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.exhale.fitting.ConversionCurve;
+import org.exhale.fitting.FittedComponent;
+import org.exhale.fitting.KineticsReport;
+import org.exhale.fitting.KissingerResult;
+import org.exhale.fitting.ModelFitResult;
+
+/**
+ * The machine-readable account of a fit: heating rates found, Kissinger, every model fit tried
+ * with parameters, confidence half-widths and criteria, the choice, warnings and settings.
+ * Energies in kJ/mol, A in 1/s, heating rates in K/min, temperatures in K.
+ */
+public final class FitJsonWriter {
+    private FitJsonWriter() {
+    }
+
+    public static String format(KineticsReport report, Map<String, Object> settings, List<String> notes) {
+        Map<String, Object> root = new LinkedHashMap<>();
+        root.put("settings", settings);
+        List<Map<String, Object>> runs = new ArrayList<>();
+        for (ConversionCurve c : report.curves()) {
+            Map<String, Object> r = new LinkedHashMap<>();
+            r.put("label", c.label());
+            r.put("heating_rate_K_min", c.heatingRateKPerMin());
+            r.put("ramp_max_deviation_K", c.heatingMaxDevK());
+            r.put("points", c.size());
+            r.put("peak_temperature_K", c.peakTemperatureK());
+            r.put("final_over_initial_mass", c.finalMass() / c.initialMass());
+            runs.add(r);
+        }
+        root.put("runs", runs);
+        KissingerResult k = report.kissinger();
+        if (k != null) {
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("Ea_kJ_mol", k.energyJPerMol() / 1e3);
+            m.put("Ea_ci_kJ_mol", finite(k.energyHalfWidthJPerMol() / 1e3));
+            m.put("A_1_s", k.preExponentialPerS());
+            m.put("lnA_ci", finite(k.lnPreExponentialHalfWidth()));
+            m.put("confidence", k.confidence());
+            root.put("kissinger", m);
+        }
+        List<Map<String, Object>> fits = new ArrayList<>();
+        for (ModelFitResult f : report.fits()) {
+            fits.add(fit(f));
+        }
+        root.put("model_fits", fits);
+        root.put("criterion", "BIC (lowest chosen); AIC reported alongside");
+        root.put("chosen_components", report.chosen() == null ? null : report.chosen().components().size());
+        root.put("failures", report.failures());
+        root.put("warnings", report.warnings());
+        root.put("notes", notes);
+        try {
+            return new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(root) + "\n";
+        } catch (JsonProcessingException e) {
+            throw new IllegalStateException("cannot format fit.json", e);
+        }
+    }
+
+    private static Map<String, Object> fit(ModelFitResult f) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("components", f.components().size());
+        m.put("model", f.options().model().id());
+        m.put("ssr", f.ssr());
+        m.put("rms_alpha", f.rms());
+        m.put("points", f.points());
+        m.put("parameters", f.parameters());
+        m.put("aic", f.aic());
+        m.put("bic", f.bic());
+        m.put("iterations", f.iterations());
+        m.put("max_points_per_run", f.options().maxPointsPerRun());
+        m.put("confidence", f.options().confidence());
+        List<Map<String, Object>> cs = new ArrayList<>();
+        for (FittedComponent c : f.components()) {
+            Map<String, Object> x = new LinkedHashMap<>();
+            x.put("name", c.name());
+            x.put("fraction", c.fraction());
+            x.put("fraction_ci", c.fractionHalfWidth());
+            x.put("model", c.model().id());
+            x.put("shape", c.shape());
+            x.put("shape_ci", c.shapeHalfWidth());
+            x.put("Ea_kJ_mol", c.energyJPerMol() / 1e3);
+            x.put("Ea_ci_kJ_mol", c.energyHalfWidthJPerMol() / 1e3);
+            x.put("A_1_s", c.preExponentialPerS());
+            x.put("lnA", c.lnPreExponential());
+            x.put("lnA_ci", c.lnPreExponentialHalfWidth());
+            x.put("reference_temperature_K", c.referenceTemperatureK());
+            cs.add(x);
+        }
+        m.put("parts", cs);
+        return m;
+    }
+
+    private static Double finite(double v) {
+        return Double.isFinite(v) ? v : null;
+    }
+}
