@@ -1,0 +1,640 @@
+package org.exhale.planning;
+
+import java.util.ArrayList;
+import java.util.List;
+
+import org.exhale.simulation.BakeCase;
+import org.exhale.simulation.BakeResult;
+import org.exhale.simulation.BakeSimulator;
+import org.exhale.simulation.CornerResult;
+import org.exhale.simulation.GasRegime;
+import org.exhale.simulation.InstantLimits;
+import org.exhale.simulation.Margin;
+import org.exhale.simulation.SimulationSettings;
+import org.exhale.recipe.Recipe;
+import org.exhale.recipe.Step;
+import org.hipparchus.optim.InitialGuess;
+import org.hipparchus.optim.MaxEval;
+import org.hipparchus.optim.SimpleBounds;
+import org.hipparchus.optim.nonlinear.scalar.GoalType;
+import org.hipparchus.optim.nonlinear.scalar.ObjectiveFunction;
+import org.hipparchus.optim.nonlinear.scalar.noderiv.BOBYQAOptimizer;
+
+/**
+ * Finds the shortest recipe that takes the polymer to the residue target at the end of a hold
+ * while every limit holds at every corner, within what the tool can do (MODEL.md §9).
+ *
+ * <p>The search is seeded from the physics rather than run blind:
+ * <ol>
+ *   <li><b>Ceiling seed</b>: ramp at the fastest rate to the ceiling (less the across-wafer
+ *       spread) and hold. When only the ceiling and the ramp rate bind, this is the optimum.</li>
+ *   <li><b>Rider seed</b>: the hot corner's trajectory that at every instant runs at the highest
+ *       temperature the instantaneous limits allow (quasi-steady pressure and cap mechanics at the
+ *       current conversion), no faster than the tool's ramp; its setpoint profile is approximated
+ *       by a few linear ramps through points on it.</li>
+ *   <li><b>Refinement</b>: BOBYQA (Hipparchus) moves the knot temperatures and durations of the
+ *       better seed to shorten the bake, with a penalty on every margin below 1.</li>
+ *   <li><b>Rounding and proof</b>: setpoints are rounded down to the setpoint step, durations
+ *       to the time step (at least the minimum step), the final hold is extended to reach the
+ *       target, the cool-down to the unload temperature is appended, and the rounded recipe is
+ *       simulated again at every corner in the automatically chosen gas regime. If a limit fails,
+ *       the knot temperatures are lowered by one setpoint step and the proof repeated.</li>
+ * </ol>
+ * Deterministic: no randomness anywhere, so the same case gives the same recipe.
+ */
+public final class Planner {
+    /** Margin the search aims for, so that rounding and the regime change of the proof keep every limit. */
+    static final double SEARCH_MARGIN = 1.01;
+    private static final double LONG_HOLD_S = 24 * 3600;
+
+    private final BakeCase bake;
+    private final Tool tool;
+    private final double capK;
+    private final double startK;
+    private final SimulationSettings search;
+    private int evaluations;
+    private final List<String> notes = new ArrayList<>();
+
+    private Planner(BakeCase bake, Tool tool) {
+        this.bake = bake;
+        this.tool = tool;
+        this.startK = bake.recipeStartK();
+        this.capK = floorTo(bake.limits().ceilingK() - bake.wafer().spreadK(), tool.setpointStepK());
+        this.search = new SimulationSettings(0, 1e-7, GasRegime.QUASI_STEADY, false);
+    }
+
+    public static PlanResult plan(BakeCase bake, Tool tool) {
+        return new Planner(bake, tool).run();
+    }
+
+    /** A recipe shape: knots (duration of the step into it [s], setpoint at its end [K]), then a hold of given length. */
+    record Shape(double[] durations, double[] temps, double holdS) {
+    }
+
+    private PlanResult run() {
+        LowerBound.Result bound = LowerBound.compute(bake, tool);
+        boolean rigorous = quasiSteady();
+        if (capK <= startK) {
+            return infeasible(bound, rigorous, "ceiling", "the ceiling less the spread is not above the start temperature",
+                    "raise the ceiling or lower the start temperature");
+        }
+        // 1. ceiling seed
+        double rampS = (capK - startK) / tool.maxRampUpKPerS();
+        Shape ceiling = new Shape(new double[]{rampS}, new double[]{capK}, LONG_HOLD_S);
+        Eval ceilingEval = evaluate(ceiling);
+        Shape best = ceiling;
+        Eval bestEval = ceilingEval;
+        notes.add("ceiling seed (fastest ramp to " + fmtC(capK) + ", hold): "
+                + (ceilingEval.feasible() ? "meets every limit, " + minutes(ceilingEval.durationS) : "violates " + ceilingEval.worst));
+        if (!ceilingEval.feasible()) {
+            Shape rider = riderSeed();
+            if (rider != null && System.getenv("EXHALE_DEBUG_PLAN") != null) {
+                System.err.println("rider temps " + java.util.Arrays.toString(rider.temps) + " durations "
+                        + java.util.Arrays.toString(rider.durations));
+            }
+            if (rider != null) {
+                Eval riderEval = evaluate(rider);
+                notes.add("rider seed (" + rider.temps.length + " ramps along the highest admissible temperature): "
+                        + (riderEval.feasible() ? "meets every limit, " + minutes(riderEval.durationS) : "violates " + riderEval.worst));
+                if (riderEval.objective < bestEval.objective) {
+                    best = rider;
+                    bestEval = riderEval;
+                }
+                // slow the whole profile down until it keeps every limit, so the refinement starts feasible
+                for (double f : new double[]{1.15, 1.3, 1.6, 2, 3, 5}) {
+                    if (bestEval.feasible()) {
+                        break;
+                    }
+                    double[] d = rider.durations.clone();
+                    for (int i = 1; i < d.length; i++) {
+                        d[i] *= f;
+                    }
+                    Shape stretched = new Shape(d, rider.temps, LONG_HOLD_S);
+                    Eval se = evaluate(stretched);
+                    if (se.feasible()) {
+                        best = stretched;
+                        bestEval = se;
+                        notes.add("rider seed stretched " + f + "x in time to keep every limit: " + minutes(se.durationS));
+                    }
+                }
+            }
+            Shape refined = refine(best);
+            Eval refinedEval = evaluate(refined);
+            if (refinedEval.objective < bestEval.objective) {
+                best = refined;
+                bestEval = refinedEval;
+                notes.add("refined by BOBYQA: " + (refinedEval.feasible() ? minutes(refinedEval.durationS) : "still violates " + refinedEval.worst));
+            }
+        }
+        if (!bestEval.feasible()) {
+            Shape slow = slowest();
+            Eval slowEval = evaluate(slow);
+            if (slowEval.feasible()) {
+                best = slow;
+                bestEval = slowEval;
+                notes.add("fell back to a slow staircase seed: " + minutes(slowEval.durationS));
+            } else {
+                return diagnose(bound, rigorous, bestEval);
+            }
+        }
+        // 4. round and prove
+        for (int backoff = 0; backoff <= 20; backoff++) {
+            Shape shifted = lowered(best, backoff * Math.max(tool.setpointStepK(), 0.5));
+            Eval e = evaluate(shifted);
+            if (Double.isNaN(e.timeToTargetS)) {
+                continue;
+            }
+            Recipe recipe = rounded(shifted, e.timeToTargetS);
+            BakeResult proof = BakeSimulator.simulate(bake.withRecipe(recipe), SimulationSettings.defaults().withSampleInterval(10));
+            evaluations++;
+            double holdEnd = holdEnd(recipe);
+            if (proof.feasible()) {
+                if (backoff > 0) {
+                    notes.add("knot temperatures lowered by " + backoff * Math.max(tool.setpointStepK(), 0.5) + " K to keep every limit after rounding");
+                }
+                return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
+                        Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null);
+            }
+            // residue only: extend the hold
+            if (proof.violated().stream().allMatch(m -> m.limit().equals("residue"))) {
+                for (int ext = 1; ext <= 10; ext++) {
+                    Recipe longer = extendFinalHold(recipe, ext * Math.max(60, 0.01 * holdEnd));
+                    BakeResult p2 = BakeSimulator.simulate(bake.withRecipe(longer), SimulationSettings.defaults().withSampleInterval(10));
+                    evaluations++;
+                    if (p2.feasible()) {
+                        return new PlanResult(longer, p2, holdEnd(longer), longer.durationS(), bound, rigorous, true,
+                                Binding.perStep(bake, tool, longer, p2), evaluations, notes, null);
+                    }
+                    if (!p2.violated().stream().allMatch(m -> m.limit().equals("residue"))) {
+                        break;
+                    }
+                }
+            }
+        }
+        return diagnose(bound, rigorous, bestEval);
+    }
+
+    private boolean quasiSteady() {
+        Recipe probe = new Recipe(startK, List.of(new Step.Ramp(capK, tool.maxRampUpKPerS()), new Step.Hold(600)));
+        BakeResult r = BakeSimulator.simulate(bake.withRecipe(probe), search);
+        evaluations++;
+        return r.regime() == GasRegime.QUASI_STEADY;
+    }
+
+    // ------------------------------------------------------------------ evaluation
+
+    /** The result of simulating a shape with a long final hold. */
+    record Eval(double timeToTargetS, double durationS, double minMargin, String worst, double objective, double finalU) {
+        boolean feasible() {
+            return !Double.isNaN(timeToTargetS) && minMargin >= 1;
+        }
+    }
+
+    private Recipe toRecipe(Shape s, double holdS) {
+        List<Step> steps = new ArrayList<>();
+        double t = startK;
+        for (int i = 0; i < s.temps.length; i++) {
+            double target = s.temps[i];
+            double d = Math.max(s.durations[i], tool.minStepS());
+            if (Math.abs(target - t) < 1e-6) {
+                steps.add(new Step.Hold(d));
+            } else {
+                double rateMax = target > t ? tool.maxRampUpKPerS() : tool.maxRampDownKPerS();
+                double rate = Math.min(Math.abs(target - t) / d, rateMax);
+                steps.add(new Step.Ramp(target, rate));
+                t = target;
+            }
+        }
+        steps.add(new Step.Hold(Math.max(holdS, tool.minStepS())));
+        return new Recipe(startK, steps);
+    }
+
+    private Eval evaluate(Shape s) {
+        Recipe r = toRecipe(s, s.holdS);
+        BakeResult res = BakeSimulator.simulate(bake.withRecipe(r), search);
+        evaluations++;
+        double tx = res.timeToTargetS();
+        double holdStart = r.durationS() - lastHoldDuration(r);
+        double min = Double.POSITIVE_INFINITY;
+        String worst = "";
+        for (Margin m : res.margins()) {
+            double v;
+            if (m.limit().equals("residue")) {
+                continue;
+            }
+            if (m.headroom()) {
+                v = m.margin() >= 0 ? Double.POSITIVE_INFINITY : 1 + m.margin() / 10;
+            } else if (m.limit().equals("thermal_dose") && !Double.isNaN(tx)) {
+                v = m.allowed() / doseAt(res, r, Math.max(tx, holdStart));
+            } else {
+                v = m.margin();
+            }
+            if (v < min) {
+                min = v;
+                worst = m.limit();
+            }
+        }
+        double duration = Double.isNaN(tx) ? Double.NaN : Math.max(tx, holdStart);
+        double objective;
+        if (Double.isNaN(tx)) {
+            objective = 1e9 * (1 + res.finalUnconverted());
+        } else {
+            double shortfall = Math.max(0, SEARCH_MARGIN - min);
+            objective = duration * (1 + 20 * shortfall) + (shortfall > 0 ? 1e5 * shortfall : 0);
+        }
+        return new Eval(tx, duration, min, worst, objective, res.finalUnconverted());
+    }
+
+    private static double lastHoldDuration(Recipe r) {
+        Step last = r.steps().get(r.steps().size() - 1);
+        return last instanceof Step.Hold h ? h.durationS() : 0;
+    }
+
+    /** Dose accumulated by time t at the hottest corner, assuming the final hold is isothermal after t. */
+    private double doseAt(BakeResult res, Recipe r, double t) {
+        CornerResult hot = res.hottest();
+        double holdT = r.endK() + hot.offsetK();
+        var dose = bake.limits().dose();
+        double rate = Math.exp(-dose.activationEnergyJPerMol() / org.exhale.PhysicalConstants.GAS_CONSTANT
+                * (1 / holdT - 1 / dose.referenceK()));
+        return hot.thermalDoseS() - (r.durationS() - t) * rate;
+    }
+
+    // ------------------------------------------------------------------ seeds
+
+    /**
+     * The rider seed, built closed-loop: from the simulated state at the end of the recipe so far,
+     * the hot corner rides the highest admissible temperature; the next ramp follows that ride as
+     * far as a straight line stays within {@code toleranceK} of it, ending that much below it; the
+     * recipe so far is simulated again and the next ramp planned from there. The tolerance grows
+     * until the ramps reach the cap within the step budget.
+     */
+    private Shape riderSeed() {
+        InstantLimits limits = new InstantLimits(bake);
+        int ramps = Math.max(1, tool.maxSteps() - 2 - (tool.hasUnload() ? 1 : 0));
+        Shape last = null;
+        for (double tol = 0.5; tol <= 128; tol *= 2) {
+            Shape s = closedLoop(limits, ramps + 1, tol);
+            if (s == null) {
+                break;
+            }
+            last = s;
+            if (s.temps[s.temps.length - 1] >= capK - 1e-9) {
+                return s;
+            }
+        }
+        if (last == null) {
+            return null;
+        }
+        // the budget ran out below the cap: finish with one ramp to it at a tenth of the fastest rate
+        double[] temps = java.util.Arrays.copyOf(last.temps, last.temps.length + 1);
+        double[] durations = java.util.Arrays.copyOf(last.durations, last.durations.length + 1);
+        temps[temps.length - 1] = capK;
+        durations[durations.length - 1] = (capK - last.temps[last.temps.length - 1]) / (0.1 * tool.maxRampUpKPerS());
+        return new Shape(durations, temps, LONG_HOLD_S);
+    }
+
+    private Shape closedLoop(InstantLimits limits, int budget, double tol) {
+        int k = limits.size();
+        double spread = bake.wafer().spreadK();
+        List<Double> temps = new ArrayList<>();
+        List<Double> durations = new ArrayList<>();
+        double[] alpha = new double[k];
+        for (int j = 0; j < k; j++) {
+            alpha[j] = bake.polymer().initialConversion(j);
+        }
+        double wafer = startK + spread;
+        double setpoint = startK;
+        for (int q = 0; q < budget; q++) {
+            List<double[]> path = ride(limits, alpha, wafer, setpoint);
+            if (path == null) {
+                return null;
+            }
+            int e;
+            double target;
+            {
+                e = 1;
+                while (e + 1 < path.size() && chordWithin(path, e + 1, tol)) {
+                    e++;
+                }
+                target = path.get(e)[1];
+                if (target < capK - 1e-9) {
+                    target = Math.max(target - chordExcess(path, e), setpoint);
+                }
+            }
+            double duration = Math.max(path.get(e)[0] - path.get(0)[0], (target - setpoint) / tool.maxRampUpKPerS());
+            temps.add(target);
+            durations.add(Math.max(duration, 1));
+            if (target >= capK - 1e-9) {
+                break;
+            }
+            // where the real recipe so far leaves the hot corner
+            Shape partial = new Shape(unbox(durations), unbox(temps), 1);
+            BakeResult r = BakeSimulator.simulate(bake.withRecipe(toRecipe(partial, 1e-3)),
+                    search.withSampleInterval(1e9));
+            evaluations++;
+            CornerResult hot = r.hottest();
+            double[] end = hot.history().get(hot.history().size() - 1);
+            for (int j = 0; j < k; j++) {
+                alpha[j] = end[3 + j];
+            }
+            wafer = end[hot.column("wafer_K")];
+            setpoint = target;
+        }
+        return new Shape(unbox(durations), unbox(temps), LONG_HOLD_S);
+    }
+
+    private static double[] unbox(List<Double> list) {
+        return list.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    /** Whether the straight line from the path's start to point e stays within tol of the path. */
+    private static boolean chordWithin(List<double[]> path, int e, double tol) {
+        for (int p = 1; p < e; p++) {
+            if (Math.abs(chord(path, 0, e, p) - path.get(p)[1]) > tol) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** How far the straight line from the path's start to point e rises above the path at most. */
+    private static double chordExcess(List<double[]> path, int e) {
+        double m = 0;
+        for (int p = 1; p < e; p++) {
+            m = Math.max(m, chord(path, 0, e, p) - path.get(p)[1]);
+        }
+        return m;
+    }
+
+    /**
+     * The hot corner's ride from the given state at the highest admissible temperature, no faster
+     * than the tool, until the setpoint reaches the cap: points (time from now [s], setpoint [K]).
+     */
+    private List<double[]> ride(InstantLimits limits, double[] alpha0, double wafer0, double setpoint0) {
+        int k = limits.size();
+        double spread = bake.wafer().spreadK();
+        double[] alpha = alpha0.clone();
+        double tHot = Math.max(wafer0, setpoint0 + spread);
+        double t = 0;
+        double dt = 5;
+        List<double[]> path = new ArrayList<>();
+        path.add(new double[]{0, setpoint0});
+        while (t < LONG_HOLD_S) {
+            double top = Math.min(tHot + tool.maxRampUpKPerS() * dt, capK + spread);
+            double feasible = highestFeasible(limits, alpha, top, startK + spread - 100);
+            if (Double.isNaN(feasible)) {
+                return null;
+            }
+            double next = Math.max(feasible, tHot - tool.maxRampDownKPerS() * dt);
+            for (int j = 0; j < k; j++) {
+                alpha[j] = Math.min(1, alpha[j] + dt * limits.rate(j, next, alpha[j]));
+            }
+            tHot = next;
+            t += dt;
+            path.add(new double[]{t, tHot - spread});
+            if (tHot - spread >= capK - 1e-6) {
+                break;
+            }
+        }
+        return path;
+    }
+
+    private static double highestFeasible(InstantLimits limits, double[] alpha, double top, double floor) {
+        if (limits.margin(top, alpha) >= SEARCH_MARGIN) {
+            return top;
+        }
+        double hi = top;
+        double lo = top - 2;
+        while (lo > floor && limits.margin(lo, alpha) < SEARCH_MARGIN) {
+            hi = lo;
+            lo -= 2;
+        }
+        if (lo <= floor) {
+            return Double.NaN;
+        }
+        for (int it = 0; it < 30 && hi - lo > 1e-3; it++) {
+            double mid = 0.5 * (lo + hi);
+            if (limits.margin(mid, alpha) >= SEARCH_MARGIN) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
+    }
+
+    private static double chord(List<double[]> path, int a, int b, int p) {
+        double[] pa = path.get(a);
+        double[] pb = path.get(b);
+        double[] pp = path.get(p);
+        return pa[1] + (pp[0] - pa[0]) / (pb[0] - pa[0]) * (pb[1] - pa[1]);
+    }
+
+    private static double interpolate(List<double[]> path, double t) {
+        for (int i = 1; i < path.size(); i++) {
+            double[] a = path.get(i - 1);
+            double[] b = path.get(i);
+            if (t <= b[0]) {
+                double s = (t - a[0]) / (b[0] - a[0]);
+                return a[1] + s * (b[1] - a[1]);
+            }
+        }
+        return path.get(path.size() - 1)[1];
+    }
+
+    /** A slow fallback: ramp to well below the cap, then creep up at a tenth of the fastest rate. */
+    private Shape slowest() {
+        double mid = startK + 0.5 * (capK - startK);
+        return new Shape(new double[]{(mid - startK) / tool.maxRampUpKPerS(), (capK - mid) / (0.1 * tool.maxRampUpKPerS())},
+                new double[]{mid, capK}, LONG_HOLD_S);
+    }
+
+    // ------------------------------------------------------------------ refinement
+
+    private Shape refine(Shape seed) {
+        int m = seed.temps.length;
+        int n = 2 * m;
+        double[] x0 = new double[n];
+        double[] lo = new double[n];
+        double[] hi = new double[n];
+        double span = capK - startK;
+        for (int i = 0; i < m; i++) {
+            x0[i] = (seed.temps[i] - startK) / span;
+            lo[i] = 0;
+            hi[i] = 1;
+            x0[m + i] = Math.log10(Math.max(Math.max(seed.durations[i], tool.minStepS()), 1));
+            lo[m + i] = Math.log10(Math.max(tool.minStepS(), 1));
+            hi[m + i] = Math.log10(LONG_HOLD_S);
+            x0[m + i] = Math.min(Math.max(x0[m + i], lo[m + i]), hi[m + i]);
+        }
+        BOBYQAOptimizer opt = new BOBYQAOptimizer(2 * n + 1, 0.05, 1e-4);
+        double[][] bestX = {x0.clone()};
+        double[] bestF = {Double.POSITIVE_INFINITY};
+        try {
+            opt.optimize(new MaxEval(Math.max(40, 6 * n)), GoalType.MINIMIZE, new InitialGuess(x0),
+                    new SimpleBounds(lo, hi), new ObjectiveFunction(x -> {
+                        double f = evaluate(decode(x, m)).objective;
+                        if (f < bestF[0]) {
+                            bestF[0] = f;
+                            bestX[0] = x.clone();
+                        }
+                        return f;
+                    }));
+        } catch (org.hipparchus.exception.MathIllegalStateException e) {
+            notes.add("refinement stopped at its evaluation limit");
+        }
+        return decode(bestX[0], m);
+    }
+
+    private Shape decode(double[] x, int m) {
+        double[] temps = new double[m];
+        double[] durations = new double[m];
+        for (int i = 0; i < m; i++) {
+            temps[i] = startK + x[i] * (capK - startK);
+            durations[i] = Math.pow(10, x[m + i]);
+        }
+        return new Shape(durations, temps, LONG_HOLD_S);
+    }
+
+    private Shape lowered(Shape s, double byK) {
+        if (byK == 0) {
+            return s;
+        }
+        double[] temps = s.temps.clone();
+        for (int i = 0; i < temps.length; i++) {
+            temps[i] = Math.max(startK + 1, temps[i] - byK);
+        }
+        return new Shape(s.durations, temps, s.holdS);
+    }
+
+    // ------------------------------------------------------------------ rounding
+
+    private Recipe rounded(Shape s, double timeToTargetS) {
+        List<Step> steps = new ArrayList<>();
+        double t = startK;
+        double elapsed = 0;
+        double res = tool.setpointStepK();
+        double ts = Math.max(tool.timeStepS(), 1e-3);
+        for (int i = 0; i < s.temps.length; i++) {
+            double target = Math.min(floorTo(s.temps[i], res), capK);
+            double d = Math.max(s.durations[i], tool.minStepS());
+            if (Math.abs(target - t) < 1e-9) {
+                double dh = ceilTo(d, ts);
+                steps.add(new Step.Hold(dh));
+                elapsed += dh;
+                continue;
+            }
+            double rateMax = target > t ? tool.maxRampUpKPerS() : tool.maxRampDownKPerS();
+            double minDuration = Math.abs(target - t) / rateMax;
+            double dr = ceilTo(Math.max(Math.max(d, minDuration), tool.minStepS()), ts);
+            steps.add(new Step.Ramp(target, Math.abs(target - t) / dr));
+            elapsed += dr;
+            t = target;
+        }
+        double hold = ceilTo(Math.max(timeToTargetS - elapsed, tool.minStepS()), ts);
+        steps.add(new Step.Hold(hold));
+        if (tool.hasUnload() && tool.unloadK() < t) {
+            double dr = ceilTo(Math.max((t - tool.unloadK()) / tool.maxRampDownKPerS(), tool.minStepS()), ts);
+            steps.add(new Step.Ramp(tool.unloadK(), (t - tool.unloadK()) / dr));
+        }
+        return new Recipe(startK, steps);
+    }
+
+    private Recipe extendFinalHold(Recipe r, double extraS) {
+        List<Step> steps = new ArrayList<>(r.steps());
+        int idx = lastHoldIndex(r);
+        Step.Hold h = (Step.Hold) steps.get(idx);
+        steps.set(idx, new Step.Hold(ceilTo(h.durationS() + extraS, Math.max(tool.timeStepS(), 1e-3))));
+        return new Recipe(r.startK(), steps);
+    }
+
+    private static int lastHoldIndex(Recipe r) {
+        for (int i = r.steps().size() - 1; i >= 0; i--) {
+            if (r.steps().get(i) instanceof Step.Hold) {
+                return i;
+            }
+        }
+        throw new IllegalStateException("recipe has no hold");
+    }
+
+    /** Elapsed time at the end of the final hold (before the cool-down). */
+    static double holdEnd(Recipe r) {
+        int idx = lastHoldIndex(r);
+        return r.segments().get(idx).endTimeS();
+    }
+
+    static double floorTo(double v, double step) {
+        return step <= 0 ? v : Math.floor(v / step + 1e-9) * step;
+    }
+
+    static double ceilTo(double v, double step) {
+        return step <= 0 ? v : Math.ceil(v / step - 1e-9) * step;
+    }
+
+    // ------------------------------------------------------------------ infeasible
+
+    private PlanResult infeasible(LowerBound.Result bound, boolean rigorous, String limit, String reason, String suggestion) {
+        return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
+                new PlanResult.Infeasibility(limit, reason, Double.NaN, Double.NaN, suggestion));
+    }
+
+    private PlanResult diagnose(LowerBound.Result bound, boolean rigorous, Eval best) {
+        // best residue reachable under the ceiling within the long hold
+        Shape ceiling = new Shape(new double[]{(capK - startK) / tool.maxRampUpKPerS()}, new double[]{capK}, LONG_HOLD_S);
+        Recipe r = toRecipe(ceiling, LONG_HOLD_S);
+        BakeResult res = BakeSimulator.simulate(bake.withRecipe(r), search);
+        evaluations++;
+        double bestU = res.finalUnconverted();
+        Margin worst = res.violated().stream().filter(m -> !m.limit().equals("residue")).findFirst().orElse(null);
+        if (Double.isNaN(res.timeToTargetS())) {
+            // find the ceiling that would reach the target within the long hold
+            String suggestion = "raise the ceiling (the residue target is not reached at " + fmtC(capK) + " within "
+                    + minutes(LONG_HOLD_S) + ")";
+            for (double up = 10; up <= 200; up += 10) {
+                BakeCase hotter = bake.withLimits(bake.limits().withCeiling(bake.limits().ceilingK() + up));
+                Recipe rr = new Recipe(startK, List.of(new Step.Ramp(capK + up, tool.maxRampUpKPerS()), new Step.Hold(LONG_HOLD_S)));
+                BakeResult h = BakeSimulator.simulate(hotter.withRecipe(rr), search);
+                evaluations++;
+                if (!Double.isNaN(h.timeToTargetS())) {
+                    suggestion = "a ceiling of " + fmtC(bake.limits().ceilingK() + up) + " would reach the target in "
+                            + minutes(h.timeToTargetS());
+                    break;
+                }
+            }
+            return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
+                    new PlanResult.Infeasibility("residue", "the residue target is not reached under the ceiling",
+                            bestU, LONG_HOLD_S, suggestion));
+        }
+        String limit = best.worst.isEmpty() ? (worst == null ? "unknown" : worst.limit()) : best.worst;
+        String suggestion = switch (limit) {
+            case "pressure", "strength", "cracking", "delamination", "deflection" ->
+                    "the trapped pressure is too high even at the slowest recipe tried: a more porous or thinner cap, "
+                    + "larger pores, or a higher allowed pressure";
+            case "buckling" -> "the cap buckles under its thermal compression: a cap with less compressive stress or a narrower span";
+            case "thermal_dose" -> "the thermal budget is too small for the polymer's kinetics: raise the dose limit or use a faster polymer";
+            default -> "relax the '" + limit + "' limit";
+        };
+        double atStart = new InstantLimits(bake).margin(startK, initialAlpha());
+        String reason = atStart < 1 ? "the '" + limit + "' limit fails already at the start temperature"
+                : "no recipe tried keeps the '" + limit + "' limit (best margin " + String.format(java.util.Locale.ROOT, "%.3g", best.minMargin) + ")";
+        return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
+                new PlanResult.Infeasibility(limit, reason, bestU, LONG_HOLD_S, suggestion));
+    }
+
+    private double[] initialAlpha() {
+        double[] a = new double[bake.polymer().size()];
+        for (int j = 0; j < a.length; j++) {
+            a[j] = bake.polymer().initialConversion(j);
+        }
+        return a;
+    }
+
+    static String fmtC(double k) {
+        return String.format(java.util.Locale.ROOT, "%.0f C", k - 273.15);
+    }
+
+    static String minutes(double s) {
+        return String.format(java.util.Locale.ROOT, "%.1f min", s / 60);
+    }
+}
