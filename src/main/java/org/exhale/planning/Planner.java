@@ -59,7 +59,7 @@ public final class Planner {
         this.bake = bake;
         this.tool = tool;
         this.startK = bake.recipeStartK();
-        this.capK = floorTo(bake.limits().ceilingK() - bake.wafer().spreadK(), tool.setpointStepK());
+        this.capK = floorSetpoint(bake.limits().ceilingK() - bake.wafer().spreadK(), tool.setpointStepK());
         this.search = new SimulationSettings(0, 1e-7, GasRegime.QUASI_STEADY, false);
     }
 
@@ -84,11 +84,24 @@ public final class Planner {
         Eval ceilingEval = evaluate(ceiling);
         Shape best = ceiling;
         Eval bestEval = ceilingEval;
+        if (ceilingEval.feasible() && ceilingEval.timeToTargetS < rampS + tool.minStepS()) {
+            // the target is reached before the cap: a lower final setpoint with the shortest hold is shorter
+            Shape lower = lowestSufficient(ceilingEval);
+            if (lower != null) {
+                Eval le = evaluate(lower);
+                if (le.feasible() && le.durationS < bestEval.durationS) {
+                    best = lower;
+                    bestEval = le;
+                    notes.add("target reached before the cap: fastest ramp to " + fmtC(lower.temps[0]) + " then the shortest hold, "
+                            + minutes(le.durationS));
+                }
+            }
+        }
         notes.add("ceiling seed (fastest ramp to " + fmtC(capK) + ", hold): "
                 + (ceilingEval.feasible() ? "meets every limit, " + minutes(ceilingEval.durationS) : "violates " + ceilingEval.worst));
         if (!ceilingEval.feasible()) {
             Shape rider = riderSeed();
-            if (rider != null && System.getenv("EXHALE_DEBUG_PLAN") != null) {
+            if (rider != null && Boolean.getBoolean("exhale.debugPlan")) {
                 System.err.println("rider temps " + java.util.Arrays.toString(rider.temps) + " durations "
                         + java.util.Arrays.toString(rider.durations));
             }
@@ -261,6 +274,33 @@ public final class Planner {
     }
 
     // ------------------------------------------------------------------ seeds
+
+    /** Bisection on the final setpoint of a fastest ramp: the lowest one whose target time fits a minimum hold. */
+    private Shape lowestSufficient(Eval atCap) {
+        double lo = startK;
+        double hi = capK;
+        Shape best = null;
+        for (int it = 0; it < 14 && hi - lo > Math.max(tool.setpointStepK(), 0.05); it++) {
+            double mid = 0.5 * (lo + hi);
+            double ramp = (mid - startK) / tool.maxRampUpKPerS();
+            Shape s = new Shape(new double[]{ramp}, new double[]{mid}, Math.max(tool.minStepS(), 1));
+            Eval e = evaluate(s);
+            if (e.feasible() && e.timeToTargetS <= ramp + tool.minStepS()) {
+                hi = mid;
+                best = s;
+            } else {
+                lo = mid;
+            }
+        }
+        if (best == null) {
+            return null;
+        }
+        double t = floorSetpoint(best.temps[0], tool.setpointStepK());
+        if (t < best.temps[0]) {
+            t += Math.max(tool.setpointStepK(), 0);
+        }
+        return new Shape(new double[]{(t - startK) / tool.maxRampUpKPerS()}, new double[]{Math.min(t, capK)}, LONG_HOLD_S);
+    }
 
     /**
      * The rider seed, built closed-loop: from the simulated state at the end of the recipe so far,
@@ -517,7 +557,7 @@ public final class Planner {
         double res = tool.setpointStepK();
         double ts = Math.max(tool.timeStepS(), 1e-3);
         for (int i = 0; i < s.temps.length; i++) {
-            double target = Math.min(floorTo(s.temps[i], res), capK);
+            double target = Math.min(floorSetpoint(s.temps[i], res), capK);
             double d = Math.max(s.durations[i], tool.minStepS());
             if (Math.abs(target - t) < 1e-9) {
                 double dh = ceilTo(d, ts);
@@ -562,6 +602,12 @@ public final class Planner {
     static double holdEnd(Recipe r) {
         int idx = lastHoldIndex(r);
         return r.segments().get(idx).endTimeS();
+    }
+
+    /** Rounds a setpoint down to the tool's resolution on the Celsius scale the tool displays. */
+    static double floorSetpoint(double kelvin, double step) {
+        double c0 = org.exhale.PhysicalConstants.ZERO_CELSIUS_K;
+        return floorTo(kelvin - c0, step) + c0;
     }
 
     static double floorTo(double v, double step) {

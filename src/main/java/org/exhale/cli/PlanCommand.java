@@ -1,0 +1,168 @@
+package org.exhale.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+
+import org.exhale.PhysicalConstants;
+import org.exhale.io.CaseFile;
+import org.exhale.io.CaseYamlReader;
+import org.exhale.io.ErrorKind;
+import org.exhale.io.HistoryCsvWriter;
+import org.exhale.io.InputException;
+import org.exhale.io.Numbers;
+import org.exhale.io.OutputFolder;
+import org.exhale.io.RecipeCsvWriter;
+import org.exhale.io.SummaryJsonWriter;
+import org.exhale.planning.PlanResult;
+import org.exhale.planning.Planner;
+import org.exhale.recipe.Recipe;
+import org.exhale.recipe.Step;
+import org.exhale.report.Cautions;
+import org.exhale.report.TextSummary;
+import org.exhale.simulation.Margin;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+@Command(name = "plan", mixinStandardHelpOptions = true,
+        header = "Plan the shortest recipe that meets every limit.",
+        description = {"Searches for the shortest ramp-and-hold recipe from the case's start temperature to the residue "
+                + "target at the end of a hold (then the cool-down to the tool's unload temperature), within the "
+                + "tool's rates, resolutions and step count, keeping every limit at every wafer corner. The rounded "
+                + "recipe is simulated again to prove it. Writes DIR/recipe.csv, DIR/plan.json, DIR/recipe.yaml, "
+                + "DIR/history.csv and DIR/summary.json.",
+                "Exit 0 planned and verified, 4 no feasible recipe, 2 bad input."})
+final class PlanCommand implements Callable<Integer> {
+    @Parameters(index = "0", paramLabel = "CASE", description = "Case file (YAML) with a tool section.")
+    Path casePath;
+
+    @Option(names = {"-o", "--output"}, paramLabel = "DIR", description = "Output folder (default: out/<case file name>-plan).")
+    Path output;
+
+    @Mixin
+    CommonOptions common;
+
+    @Override
+    public Integer call() {
+        CaseFile cf = CaseYamlReader.read(casePath);
+        if (cf.tool() == null) {
+            throw new InputException(ErrorKind.MISSING_KEY, casePath.toString(), "tool", 0,
+                    "planning needs a 'tool' section (max_ramp_up, max_ramp_down, setpoint_step, time_step, min_step, "
+                            + "max_steps, unload)");
+        }
+        if (cf.bake().recipe() == null) {
+            throw new InputException(ErrorKind.MISSING_KEY, casePath.toString(), "recipe.start", 0,
+                    "planning needs the start temperature: give 'recipe: {start: 150 C, steps: [...]}'");
+        }
+        Path dir = output != null ? output : Path.of("out", SimulateCommand.defaultOutput(casePath).getFileName() + "-plan");
+        OutputFolder out = new OutputFolder(dir, common.force);
+        out.checkWritable();
+        long t0 = System.nanoTime();
+        PlanResult plan = Planner.plan(cf.bake(), cf.tool());
+        double seconds = (System.nanoTime() - t0) / 1e9;
+        List<String> warnings = new ArrayList<>(cf.warnings());
+        out.put("plan.json", SummaryJsonWriter.toJson(planJson(plan, seconds)));
+        if (plan.feasible()) {
+            out.put("recipe.csv", RecipeCsvWriter.csv(plan.recipe()));
+            out.put("recipe.yaml", RecipeCsvWriter.yaml(plan.recipe()));
+            out.put("history.csv", HistoryCsvWriter.write(plan.verification()));
+            out.put("summary.json", SummaryJsonWriter.toJson(SummaryJsonWriter.summary(plan.verification(), warnings)));
+        }
+        out.commit();
+        if (!common.quiet) {
+            System.out.print(text(plan, seconds));
+            warnings.forEach(w -> System.out.println("Warning: " + w));
+            System.out.println("Wrote " + out.dir() + (plan.feasible() ? " (recipe.csv, recipe.yaml, plan.json, history.csv, summary.json)" : " (plan.json)"));
+            Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+        }
+        return plan.feasible() ? Main.OK : Main.INFEASIBLE;
+    }
+
+    static Map<String, Object> planJson(PlanResult p, double seconds) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("feasible", p.feasible());
+        m.put("verified", p.verified());
+        m.put("duration_s", SummaryJsonWriter.num(p.durationS()));
+        m.put("total_with_cooldown_s", SummaryJsonWriter.num(p.totalS()));
+        m.put("lower_bound_s", SummaryJsonWriter.num(p.lowerBound().boundS()));
+        m.put("bound_ratio", SummaryJsonWriter.num(p.boundRatio()));
+        m.put("lower_bound_rigorous", p.boundRigorous());
+        m.put("ceiling_only_lower_bound_s", SummaryJsonWriter.num(p.lowerBound().ceilingOnlyBoundS()));
+        m.put("lower_bound_note", p.boundRigorous()
+                ? "quasi-steady gas: the bound holds for every recipe"
+                : "the gas is not quasi-steady here, so the bound with pressure-driven limits is an estimate; "
+                  + "ceiling_only_lower_bound_s is rigorous");
+        if (p.feasible()) {
+            m.put("margins", SummaryJsonWriter.margins(p.verification().margins()));
+            List<Object> steps = new ArrayList<>();
+            Recipe r = p.recipe();
+            for (int i = 0; i < r.steps().size(); i++) {
+                Map<String, Object> s = new LinkedHashMap<>();
+                s.put("step", i + 1);
+                s.put("action", r.steps().get(i) instanceof Step.Ramp ? "ramp" : "hold");
+                s.put("binding", p.binding().get(i));
+                steps.add(s);
+            }
+            m.put("binding", steps);
+        } else {
+            PlanResult.Infeasibility inf = p.infeasibility();
+            Map<String, Object> d = new LinkedHashMap<>();
+            d.put("limit", inf.limit());
+            d.put("reason", inf.reason());
+            d.put("best_residue", SummaryJsonWriter.num(inf.bestResidue()));
+            d.put("best_residue_within_s", SummaryJsonWriter.num(inf.withinS()));
+            d.put("suggestion", inf.suggestion());
+            m.put("infeasible", d);
+        }
+        m.put("simulations", p.evaluations());
+        m.put("planning_time_s", seconds);
+        m.put("notes", p.notes());
+        m.put("cautions", Cautions.BAKE);
+        return m;
+    }
+
+    static String text(PlanResult p, double seconds) {
+        StringBuilder sb = new StringBuilder();
+        double c0 = PhysicalConstants.ZERO_CELSIUS_K;
+        if (!p.feasible()) {
+            PlanResult.Infeasibility inf = p.infeasibility();
+            sb.append("No feasible recipe: ").append(inf.reason()).append(" (limit: ").append(inf.limit()).append(")\n");
+            if (Double.isFinite(inf.bestResidue())) {
+                sb.append("Best residue under the ceiling within ").append(Numbers.fixed(inf.withinS() / 3600, 0))
+                        .append(" h: ").append(Numbers.sig(inf.bestResidue() * 100, 3)).append(" %\n");
+            }
+            sb.append("What would help: ").append(inf.suggestion()).append('\n');
+            return sb.toString();
+        }
+        Recipe r = p.recipe();
+        sb.append(String.format(Locale.ROOT, "%-4s %-5s %9s %9s %12s %10s %10s  %s%n", "step", "kind", "start C", "end C",
+                "rate C/min", "dur s", "elapsed s", "binding"));
+        var segs = r.segments();
+        for (int i = 0; i < segs.size(); i++) {
+            var s = segs.get(i);
+            boolean ramp = r.steps().get(i) instanceof Step.Ramp;
+            sb.append(String.format(Locale.ROOT, "%-4d %-5s %9.1f %9.1f %12s %10.0f %10.0f  %s%n", i + 1,
+                    ramp ? "ramp" : "hold", s.startK() - c0, s.endK() - c0,
+                    ramp ? Numbers.fixed(Math.abs(s.slopeKPerS()) * 60, 3) : "-", s.durationS(), s.endTimeS(),
+                    p.binding().get(i)));
+        }
+        sb.append(String.format(Locale.ROOT, "Planned time to target (end of final hold): %.1f min; with cool-down %.1f min%n",
+                p.durationS() / 60, p.totalS() / 60));
+        sb.append(String.format(Locale.ROOT, "Lower bound: %.1f min; planned/bound = %s%s%n", p.lowerBound().boundS() / 60,
+                Numbers.sig(p.boundRatio(), 4), p.boundRigorous() ? "" : " (bound approximate: gas not quasi-steady; ceiling-only bound "
+                        + Numbers.fixed(p.lowerBound().ceilingOnlyBoundS() / 60, 1) + " min)"));
+        sb.append("Verified: ").append(p.verified() ? "yes, the rounded recipe meets every limit at every corner" : "NO").append('\n');
+        for (Margin m : p.verification().margins()) {
+            sb.append("  ").append(TextSummary.line(m)).append('\n');
+        }
+        sb.append(String.format(Locale.ROOT, "Planning: %d simulations, %.2f s%n", p.evaluations(), seconds));
+        return sb.toString();
+    }
+}
