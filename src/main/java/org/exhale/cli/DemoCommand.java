@@ -14,8 +14,9 @@ import picocli.CommandLine.Option;
 
 @Command(name = "demo", mixinStandardHelpOptions = true,
         header = "Run the main job on the bundled demo cases.",
-        description = "Runs the bundled demo cases of data/demo (an invented scenario) and writes results to "
-                + "out/demo/<case>, replacing earlier demo results.")
+        description = "Plans the shortest safe recipe for each bundled demo case of data/demo (an invented scenario: "
+                + "a porous nanometre cap over interconnect lines; a dense cap over a MEMS disc cavity) and writes "
+                + "the results to out/demo/<case>, replacing earlier demo results.")
 final class DemoCommand implements Callable<Integer> {
     static final List<String> CASES = List.of("porous-line.yaml", "dense-disc.yaml");
 
@@ -33,11 +34,11 @@ final class DemoCommand implements Callable<Integer> {
             }
             System.out.println("=== " + p + " ===");
             String name = c.replace(".yaml", "");
-            int code = new CommandLine(new SimulateCommand()).setExecutionExceptionHandler((e, cl, pr) -> {
+            int code = new CommandLine(new PlanCommand()).setExecutionExceptionHandler((e, cl, pr) -> {
                 throw e;
             }).execute(p.toString(), "-o", "out/demo/" + name, "--force");
             System.out.println();
-            worst = Math.max(worst, code == Main.VIOLATED ? Main.OK : code);
+            worst = Math.max(worst, code);
         }
         return worst;
     }

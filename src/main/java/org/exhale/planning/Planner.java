@@ -118,12 +118,11 @@ public final class Planner {
                     if (bestEval.feasible()) {
                         break;
                     }
-                    double[] d = rider.durations.clone();
-                    for (int i = 1; i < d.length; i++) {
-                        d[i] *= f;
-                    }
-                    Shape stretched = new Shape(d, rider.temps, LONG_HOLD_S);
+                    Shape stretched = slowed(rider, f);
                     Eval se = evaluate(stretched);
+                    if (Boolean.getBoolean("exhale.debugPlan")) {
+                        System.err.println("stretch " + f + " -> " + se);
+                    }
                     if (se.feasible()) {
                         best = stretched;
                         bestEval = se;
@@ -152,7 +151,7 @@ public final class Planner {
         }
         // 4. round and prove
         for (int backoff = 0; backoff <= 20; backoff++) {
-            Shape shifted = lowered(best, backoff * Math.max(tool.setpointStepK(), 0.5));
+            Shape shifted = slowed(best, 1 + 0.04 * backoff);
             Eval e = evaluate(shifted);
             if (Double.isNaN(e.timeToTargetS)) {
                 continue;
@@ -161,9 +160,13 @@ public final class Planner {
             BakeResult proof = BakeSimulator.simulate(bake.withRecipe(recipe), SimulationSettings.defaults().withSampleInterval(10));
             evaluations++;
             double holdEnd = holdEnd(recipe);
+            if (Boolean.getBoolean("exhale.debugPlan")) {
+                System.err.println("proof backoff " + backoff + ": " + proof.violated());
+            }
             if (proof.feasible()) {
                 if (backoff > 0) {
-                    notes.add("knot temperatures lowered by " + backoff * Math.max(tool.setpointStepK(), 0.5) + " K to keep every limit after rounding");
+                    notes.add("ramps after the first slowed by " + Math.round(4 * backoff) + " % to keep every limit after "
+                            + "rounding and in the proof's gas regime");
                 }
                 return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
                         Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null);
@@ -222,8 +225,31 @@ public final class Planner {
         return new Recipe(startK, steps);
     }
 
+    /** Time to target of the last evaluated shape, to size the final hold of the next one. */
+    private double lastTargetS = Double.NaN;
+
     private Eval evaluate(Shape s) {
-        Recipe r = toRecipe(s, s.holdS);
+        if (s.holdS >= LONG_HOLD_S && !Double.isNaN(lastTargetS)) {
+            // a final hold that comfortably covers the last target time keeps the simulations short
+            double ramps = 0;
+            for (double d : s.durations) {
+                ramps += Math.max(d, tool.minStepS());
+            }
+            double hold = Math.max(3600, 2 * lastTargetS - ramps);
+            Eval e = evaluateWithHold(s, hold);
+            if (!Double.isNaN(e.timeToTargetS)) {
+                return e;
+            }
+        }
+        Eval e = evaluateWithHold(s, s.holdS);
+        if (!Double.isNaN(e.timeToTargetS)) {
+            lastTargetS = e.timeToTargetS;
+        }
+        return e;
+    }
+
+    private Eval evaluateWithHold(Shape s, double holdS) {
+        Recipe r = toRecipe(s, holdS);
         BakeResult res = BakeSimulator.simulate(bake.withRecipe(r), search);
         evaluations++;
         double tx = res.timeToTargetS();
@@ -537,15 +563,16 @@ public final class Planner {
         return new Shape(durations, temps, LONG_HOLD_S);
     }
 
-    private Shape lowered(Shape s, double byK) {
-        if (byK == 0) {
+    /** The same setpoints reached more slowly: every step after the first lasts {@code factor} times longer. */
+    private static Shape slowed(Shape s, double factor) {
+        if (factor == 1) {
             return s;
         }
-        double[] temps = s.temps.clone();
-        for (int i = 0; i < temps.length; i++) {
-            temps[i] = Math.max(startK + 1, temps[i] - byK);
+        double[] d = s.durations.clone();
+        for (int i = 1; i < d.length; i++) {
+            d[i] *= factor;
         }
-        return new Shape(s.durations, temps, s.holdS);
+        return new Shape(d, s.temps, s.holdS);
     }
 
     // ------------------------------------------------------------------ rounding

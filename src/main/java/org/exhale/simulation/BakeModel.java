@@ -20,8 +20,9 @@ import org.exhale.transport.GasTransport;
  *
  * <p>State vector: conversions α_j; in the full-gas regime the moles under the cap and the moles
  * vented, each normalised by the gasifiable moles n0_j = m0 w_j (1 − c_j)/M_j (so that
- * α_j − α_j(0) = x_j + v_j is the mass balance); the thermal dose [s]; and the wafer temperature
- * when the wafer lags the setpoint.
+ * α_j − α_j(0) = x_j + v_j is the mass balance); and the thermal dose [s]. The wafer's
+ * first-order lag behind the linear setpoint of each segment is solved in closed form, so it
+ * needs no state and cannot overshoot.
  */
 final class BakeModel {
     private static final double R = PhysicalConstants.GAS_CONSTANT;
@@ -31,7 +32,6 @@ final class BakeModel {
     final int iGas;
     final int iVent;
     final int iDose;
-    final int iWafer;
     final int dim;
 
     private final double lagS;
@@ -52,6 +52,7 @@ final class BakeModel {
     private final CapStructure structure;
 
     private Segment segment;
+    private double waferAtSegmentStart;
 
     // scratch, reused on every call
     private final double[] rate;
@@ -130,7 +131,6 @@ final class BakeModel {
             iVent = -1;
         }
         iDose = next++;
-        iWafer = lagS > 0 ? next++ : -1;
         dim = next;
 
         rate = new double[k];
@@ -198,16 +198,19 @@ final class BakeModel {
         return out;
     }
 
+    /** Moves to the next recipe segment; the wafer starts it where it ended the previous one. */
     void setSegment(Segment s) {
+        if (segment != null && lagS > 0) {
+            waferAtSegmentStart = waferTemperature(segment.endTimeS(), null);
+        }
         this.segment = s;
     }
 
     double[] initialState(double startSetpointK) {
         double[] y = new double[dim];
         System.arraycopy(alpha0, 0, y, 0, k);
-        if (iWafer >= 0) {
-            y[iWafer] = startSetpointK + offsetK;
-        }
+        waferAtSegmentStart = startSetpointK + offsetK;
+        segment = null;
         return y;
     }
 
@@ -216,7 +219,15 @@ final class BakeModel {
     }
 
     double waferTemperature(double t, double[] y) {
-        return iWafer >= 0 ? y[iWafer] : setpoint(t);
+        if (lagS == 0) {
+            return setpoint(t);
+        }
+        // exact first-order lag under a linear setpoint: T = Ts(t) − bτ + (T0 − Ts(t0) + bτ) e^{−(t−t0)/τ}
+        double b = segment.slopeKPerS();
+        double t0 = segment.startTimeS();
+        double ts0 = segment.startK() + offsetK;
+        double ts = ts0 + b * (Math.min(Math.max(t, t0), segment.endTimeS()) - t0);
+        return ts - b * lagS + (waferAtSegmentStart - ts0 + b * lagS) * Math.exp(-(t - t0) / lagS);
     }
 
     /** Storage volume per area V_g [m³/m² = m]. */
@@ -251,9 +262,6 @@ final class BakeModel {
             }
         }
         dy[iDose] = hasDose ? Math.exp(-doseEOverR * (1 / temp - doseInvRef)) : 0;
-        if (iWafer >= 0) {
-            dy[iWafer] = (setpoint(t) - y[iWafer]) / lagS;
-        }
     }
 
     /** Everything reported at an instant, SI units, into {@code out} (length {@link #observableCount}). */

@@ -166,9 +166,6 @@ final class CornerRun {
             }
         }
         a[model.iDose] = 1e-6;
-        if (model.iWafer >= 0) {
-            a[model.iWafer] = 1e-6;
-        }
         return a;
     }
 
