@@ -119,7 +119,8 @@ public final class CapStructure {
 
     /**
      * @param film               film properties
-     * @param thicknessM         film thickness h [m], positive and below the span width
+     * @param thicknessM         film thickness h [m], positive and below 100 span widths (thin-plate
+     *                           theory wants w/h above about 5; the case check warns)
      * @param span               shape and size of the free span
      * @param substrateCtePerK   substrate CTE α_s [1/K] (e.g. {@link #SILICON_CTE_PER_K})
      * @param limits             safety factor and deflection limit

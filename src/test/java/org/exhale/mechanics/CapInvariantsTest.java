@@ -107,7 +107,7 @@ class CapInvariantsTest {
         assertMessage(() -> new MechanicalLimits(2, 0), "deflection");
         assertMessage(() -> PlateCoefficients.clampedRectangle(0.9), "aspect");
         FilmProperties f = FilmProperties.elastic(70e9, 0.2, 1e-6, 600, 0);
-        assertMessage(() -> new CapStructure(f, 20e-6, SpanGeometry.line(10e-6), 2.6e-6,
+        assertMessage(() -> new CapStructure(f, 2e-3, SpanGeometry.line(10e-6), 2.6e-6,
                 MechanicalLimits.withSafetyFactor(1)), "thickness");
         CapStructure c = new CapStructure(f, 0.1e-6, SpanGeometry.line(10e-6), 2.6e-6,
                 MechanicalLimits.withSafetyFactor(1));

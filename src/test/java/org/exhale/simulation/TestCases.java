@@ -61,4 +61,41 @@ public final class TestCases {
                 new Limits(c(400), 0.005, 500e3, null, 2, 20e-6),
                 demoRecipe());
     }
+
+    /** One component of the given model releasing a small product (0.4 nm, 50 g/mol). */
+    public static Polymer singleComponent(ReactionModel model, double preExponentialPerS, double activationEnergyJPerMol) {
+        return singleComponent(model, preExponentialPerS, activationEnergyJPerMol, new Product(0.050, 0.4e-9, 1.0e-5), 1150);
+    }
+
+    public static Polymer singleComponent(ReactionModel model, double preExponentialPerS, double activationEnergyJPerMol,
+                                          Product product, double densityKgPerM3) {
+        return new Polymer(densityKgPerM3, 0.02, List.of(
+                new Component("only", 1.0, model, preExponentialPerS, activationEnergyJPerMol, 0, product)),
+                Polymer.DEFAULT_SEED);
+    }
+
+    /**
+     * A porous nanometre cap in vacuum, wafer at the setpoint, no cap mechanics and a ceiling out of
+     * the way: the case for checks of kinetics, dose and Knudsen transport through the simulator.
+     */
+    public static BakeCase kineticsCase(Polymer polymer, Recipe recipe, ThermalDose dose) {
+        return new BakeCase("kinetics", polymer,
+                new Cavity(Shape.LINE, 100e-9, 100e-9, 200e-9),
+                CapFilm.porous(120e-9, 0.30, 1.5e-9),
+                null, 2.6e-6,
+                new Ambient(0, 3.0e-5, c(25), 101_325),
+                Wafer.ideal(),
+                new Limits(2500, 0.005, 1e12, dose, 1, 1),
+                recipe);
+    }
+
+    /** A hold of the given duration at the given temperature from t = 0. */
+    public static Recipe isothermal(double temperatureK, double durationS) {
+        return new Recipe(temperatureK, List.of(new Step.Hold(durationS)));
+    }
+
+    /** A single ramp at a constant rate. */
+    public static Recipe ramp(double fromK, double toK, double rateKPerS) {
+        return new Recipe(fromK, List.of(new Step.Ramp(toK, rateKPerS)));
+    }
 }
