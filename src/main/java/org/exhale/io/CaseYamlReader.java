@@ -193,6 +193,19 @@ public final class CaseYamlReader {
         }
     }
 
+    /**
+     * Makes a record from values read with range checks; where the record's own bound is stricter
+     * (an open end the reader allows), the record's message is still an {@link ErrorKind#OUT_OF_RANGE}
+     * at this node, never a raw IllegalArgumentException.
+     */
+    private static <T> T within(YamlNode at, Supplier<T> make) {
+        try {
+            return make.get();
+        } catch (IllegalArgumentException e) {
+            throw at.error(ErrorKind.OUT_OF_RANGE, e.getMessage());
+        }
+    }
+
     // ---------------------------------------------------------------- polymer
 
     private Polymer polymer(YamlNode p) {
@@ -408,7 +421,7 @@ public final class CaseYamlReader {
         double lag = w.quantity("lag", UnitKind.TIME, 0, 0, 1e5, "a time constant in [0, 1e5] s");
         double spread = w.quantity("spread", UnitKind.TEMPERATURE_DIFFERENCE, 0, 0, 199, "a spread in [0, 200) K");
         w.finish();
-        return new Wafer(lag, spread);
+        return within(w, () -> new Wafer(lag, spread));
     }
 
     private Limits limits(YamlNode l) {
@@ -425,7 +438,7 @@ public final class CaseYamlReader {
             double ref = d.requiredQuantity("reference", UnitKind.TEMPERATURE, 1, 3000, "a temperature such as 400 C");
             double max = d.requiredQuantity("max", UnitKind.TIME, 1, 1e8, "a time such as 2 h");
             d.finish();
-            dose = new ThermalDose(ea, ref, max);
+            dose = within(d, () -> new ThermalDose(ea, ref, max));
         }
         double sf = l.number("safety_factor", 1, 1, 99);
         double dmax = l.quantity("max_deflection", UnitKind.LENGTH, Double.POSITIVE_INFINITY, 1e-12, 1, "a length above 0");
@@ -457,7 +470,7 @@ public final class CaseYamlReader {
                     throw ramp.get("to").error(ErrorKind.INCONSISTENT, "the ramp ends where it starts ("
                             + fmtC(current) + "); use a hold");
                 }
-                steps.add(new Step.Ramp(to, rate));
+                steps.add(within(ramp, () -> new Step.Ramp(to, rate)));
                 current = to;
             } else if (s.has("hold")) {
                 YamlNode h = s.get("hold");
