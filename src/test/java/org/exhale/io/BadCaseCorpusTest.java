@@ -30,9 +30,9 @@ import org.junit.jupiter.params.provider.MethodSource;
  * # line: N             the line the error must point at, where it is one line of the file
  * </pre>
  */
-class BadCaseCorpusTest {
+public class BadCaseCorpusTest {
 
-    record Expectation(Path file, ErrorKind kind, String where, int line) {
+    public record Expectation(Path file, ErrorKind kind, String where, int line) {
         @Override
         public String toString() {
             return file.getFileName().toString();
@@ -47,7 +47,7 @@ class BadCaseCorpusTest {
         }
     }
 
-    static List<Expectation> corpus() throws IOException {
+    public static List<Expectation> corpus() throws IOException {
         try (Stream<Path> files = Files.list(resource("bad-cases"))) {
             return files.filter(p -> p.toString().endsWith(".yaml")).sorted().map(BadCaseCorpusTest::expectation).toList();
         }
