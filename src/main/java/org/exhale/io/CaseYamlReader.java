@@ -161,6 +161,9 @@ public final class CaseYamlReader {
         double cte = substrateCte;
         BakeCase bake = build(root, () -> new BakeCase(caseName, polymer, cavity, cap, film, cte,
                 ambient, wafer, limits, recipe));
+        // The simulation makes the cap structure; make it here once so that its checks (a cap
+        // thicker than 100 spans, ...) are input errors, not an internal error mid-run.
+        build(capNode.get("thickness"), bake::capStructure);
         plausibility(bake);
         return new CaseFile(name, bake, tool, defaults, warnings);
     }
