@@ -34,6 +34,7 @@ import org.yaml.snakeyaml.Yaml;
 import org.yaml.snakeyaml.error.MarkedYAMLException;
 import org.yaml.snakeyaml.error.YAMLException;
 import org.yaml.snakeyaml.nodes.Node;
+import org.yaml.snakeyaml.reader.ReaderException;
 
 /**
  * Reads a case file (YAML with engineering units, see docs/case-file.md). Loading is safe: the
@@ -71,6 +72,10 @@ public final class CaseYamlReader {
     }
 
     public static CaseFile parse(String name, byte[] bytes) {
+        if (bytes.length > MAX_BYTES) {
+            throw new InputException(ErrorKind.TOO_LARGE, name, "", 0,
+                    "file is larger than " + (MAX_BYTES >> 10) + " KiB; a case file is a few KiB");
+        }
         String text = decode(name, bytes);
         return new CaseYamlReader().readText(name, text);
     }
@@ -110,11 +115,17 @@ public final class CaseYamlReader {
         } catch (MarkedYAMLException e) {
             int line = e.getProblemMark() == null ? 0 : e.getProblemMark().getLine() + 1;
             String problem = e.getProblem() == null ? "invalid YAML" : e.getProblem();
-            throw new InputException(problem.contains("alias") || problem.contains("nesting")
-                    ? ErrorKind.TOO_LARGE : ErrorKind.SYNTAX, name, "", line, "invalid YAML: " + problem);
+            String lower = problem.toLowerCase(java.util.Locale.ROOT);
+            // "found undefined alias" is a syntax error, not a bomb.
+            throw new InputException(lower.contains("exceed") ? ErrorKind.TOO_LARGE : ErrorKind.SYNTAX,
+                    name, "", line, "invalid YAML: " + problem);
+        } catch (ReaderException e) {
+            throw new InputException(ErrorKind.SYNTAX, name, "", lineAt(text, e.getPosition()), "invalid YAML: character "
+                    + String.format(java.util.Locale.ROOT, "U+%04X", e.getCodePoint()) + " is not allowed in a YAML file");
         } catch (YAMLException e) {
             String msg = String.valueOf(e.getMessage());
-            throw new InputException(msg.contains("limit") || msg.contains("alias") || msg.contains("depth")
+            String lower = msg.toLowerCase(java.util.Locale.ROOT);
+            throw new InputException(lower.contains("limit") || lower.contains("alias") || lower.contains("depth")
                     ? ErrorKind.TOO_LARGE : ErrorKind.SYNTAX, name, "", 0, "invalid YAML: " + firstLine(msg));
         }
         if (node == null) {
@@ -150,8 +161,26 @@ public final class CaseYamlReader {
         double cte = substrateCte;
         BakeCase bake = build(root, () -> new BakeCase(caseName, polymer, cavity, cap, film, cte,
                 ambient, wafer, limits, recipe));
+        // The simulation makes the cap structure; make it here once so that its checks (a cap
+        // thicker than 100 spans, ...) are input errors, not an internal error mid-run.
+        build(capNode.get("thickness"), bake::capStructure);
         plausibility(bake);
         return new CaseFile(name, bake, tool, defaults, warnings);
+    }
+
+    /** The 1-based line of the code point at {@code position}, or 0 if it is out of the text. */
+    private static int lineAt(String text, int position) {
+        if (position < 0 || position > text.codePointCount(0, text.length())) {
+            return 0;
+        }
+        int end = text.offsetByCodePoints(0, position);
+        int line = 1;
+        for (int i = 0; i < end; i++) {
+            if (text.charAt(i) == '\n') {
+                line++;
+            }
+        }
+        return line;
     }
 
     private static String firstLine(String s) {
@@ -164,6 +193,19 @@ public final class CaseYamlReader {
             return make.get();
         } catch (IllegalArgumentException e) {
             throw at.error(ErrorKind.INCONSISTENT, e.getMessage());
+        }
+    }
+
+    /**
+     * Makes a record from values read with range checks; where the record's own bound is stricter
+     * (an open end the reader allows), the record's message is still an {@link ErrorKind#OUT_OF_RANGE}
+     * at this node, never a raw IllegalArgumentException.
+     */
+    private static <T> T within(YamlNode at, Supplier<T> make) {
+        try {
+            return make.get();
+        } catch (IllegalArgumentException e) {
+            throw at.error(ErrorKind.OUT_OF_RANGE, e.getMessage());
         }
     }
 
@@ -187,7 +229,8 @@ public final class CaseYamlReader {
             index++;
             Component comp = component(c, index, items.size() == 1);
             if (!names.add(comp.name())) {
-                throw c.get("name").error(ErrorKind.INCONSISTENT, "component name '" + comp.name() + "' is used twice");
+                throw (c.has("name") ? c.get("name") : c).error(ErrorKind.INCONSISTENT,
+                        "component name '" + comp.name() + "' is used twice");
             }
             comps.add(comp);
         }
@@ -266,7 +309,7 @@ public final class CaseYamlReader {
         double h = c.requiredQuantity("height", UnitKind.LENGTH, 1e-9, 0.01, "a height in [1 nm, 10 mm]");
         double l = w;
         if (shape == Shape.RECTANGLE) {
-            l = c.requiredQuantity("length", UnitKind.LENGTH, w, 1, "a length at least the width " + w * 1e9 + " nm");
+            l = c.requiredQuantity("length", UnitKind.LENGTH, w, 1, "a length at least the width " + Numbers.sig(w * 1e9, 6) + " nm");
         } else if (c.has("length")) {
             throw c.get("length").error(ErrorKind.INCONSISTENT, "length is only for shape: rectangle");
         }
@@ -381,7 +424,7 @@ public final class CaseYamlReader {
         double lag = w.quantity("lag", UnitKind.TIME, 0, 0, 1e5, "a time constant in [0, 1e5] s");
         double spread = w.quantity("spread", UnitKind.TEMPERATURE_DIFFERENCE, 0, 0, 199, "a spread in [0, 200) K");
         w.finish();
-        return new Wafer(lag, spread);
+        return within(w, () -> new Wafer(lag, spread));
     }
 
     private Limits limits(YamlNode l) {
@@ -398,7 +441,7 @@ public final class CaseYamlReader {
             double ref = d.requiredQuantity("reference", UnitKind.TEMPERATURE, 1, 3000, "a temperature such as 400 C");
             double max = d.requiredQuantity("max", UnitKind.TIME, 1, 1e8, "a time such as 2 h");
             d.finish();
-            dose = new ThermalDose(ea, ref, max);
+            dose = within(d, () -> new ThermalDose(ea, ref, max));
         }
         double sf = l.number("safety_factor", 1, 1, 99);
         double dmax = l.quantity("max_deflection", UnitKind.LENGTH, Double.POSITIVE_INFINITY, 1e-12, 1, "a length above 0");
@@ -430,7 +473,7 @@ public final class CaseYamlReader {
                     throw ramp.get("to").error(ErrorKind.INCONSISTENT, "the ramp ends where it starts ("
                             + fmtC(current) + "); use a hold");
                 }
-                steps.add(new Step.Ramp(to, rate));
+                steps.add(within(ramp, () -> new Step.Ramp(to, rate)));
                 current = to;
             } else if (s.has("hold")) {
                 YamlNode h = s.get("hold");

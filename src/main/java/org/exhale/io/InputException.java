@@ -10,6 +10,8 @@ public final class InputException extends RuntimeException {
     private final String file;
     private final String where;
     private final int line;
+    /** Longest description kept in a message [characters]. */
+    static final int MAX_WHAT = 400;
 
     public InputException(ErrorKind kind, String file, String where, int line, String what) {
         super(format(file, where, line, what));
@@ -33,7 +35,12 @@ public final class InputException extends RuntimeException {
         if (where != null && !where.isEmpty()) {
             sb.append(": ").append(where);
         }
-        sb.append(": ").append(what.replace('\n', ' ').replace('\r', ' '));
+        String w = what.replace('\n', ' ').replace('\r', ' ');
+        if (w.length() > MAX_WHAT) {
+            // A hostile value quoted in full would make a message of a megabyte.
+            w = w.substring(0, MAX_WHAT) + "... (" + (w.length() - MAX_WHAT) + " more characters)";
+        }
+        sb.append(": ").append(w);
         return sb.toString();
     }
 

@@ -10,8 +10,34 @@ import java.util.regex.Pattern;
  * another kind, NaN, infinity — is refused with a message naming what was expected.
  */
 public final class Quantities {
+    /**
+     * Number, then the rest. Applied to trimmed text; the rest is taken greedily so the match never
+     * backtracks (a lazy group before trailing blanks was quadratic in the length of a blank run).
+     */
     private static final Pattern NUMBER_UNIT =
-            Pattern.compile("^\\s*([+-]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][+-]?\\d+)?)\\s*(.*?)\\s*$");
+            Pattern.compile("([+-]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][+-]?\\d+)?)(.*)", Pattern.DOTALL);
+
+    /** A refused quantity; {@link #kind()} says whether the number or the unit is at fault. */
+    public static final class BadQuantity extends IllegalArgumentException {
+        private final ErrorKind kind;
+
+        BadQuantity(ErrorKind kind, String message) {
+            super(message);
+            this.kind = kind;
+        }
+
+        public ErrorKind kind() {
+            return kind;
+        }
+    }
+
+    private static BadQuantity badNumber(String message) {
+        return new BadQuantity(ErrorKind.BAD_NUMBER, message);
+    }
+
+    private static BadQuantity badUnit(String message) {
+        return new BadQuantity(ErrorKind.BAD_UNIT, message);
+    }
 
     private Quantities() {
     }
@@ -22,29 +48,28 @@ public final class Quantities {
      * @param text      the text as typed
      * @param kind      the expected kind of quantity
      * @param allowBare whether a bare number (no unit) is taken as SI / dimensionless
-     * @throws IllegalArgumentException with a message saying what was expected
+     * @throws BadQuantity with a message saying what was expected
      */
     public static double parse(String text, UnitKind kind, boolean allowBare) {
         if (text == null || text.isBlank()) {
-            throw new IllegalArgumentException("empty value, expected a " + kind.description() + expectedUnits(kind));
+            throw badNumber("empty value, expected a " + kind.description() + expectedUnits(kind));
         }
-        Matcher m = NUMBER_UNIT.matcher(text);
+        Matcher m = NUMBER_UNIT.matcher(text.strip());
         if (!m.matches()) {
-            throw new IllegalArgumentException("'" + text + "' is not a number with a unit, expected a "
+            throw badNumber("'" + text + "' is not a number, expected a " + kind.description() + expectedUnits(kind));
+        }
+        String rest = m.group(2);
+        if (!rest.isEmpty() && ",.0123456789".indexOf(rest.charAt(0)) >= 0) {
+            throw badNumber("'" + text + "' is not a number (use a decimal point and no separators), expected a "
                     + kind.description() + expectedUnits(kind));
         }
-        double value;
-        try {
-            value = Double.parseDouble(m.group(1));
-        } catch (NumberFormatException e) {
-            throw new IllegalArgumentException("'" + text + "' is not a number");
-        }
+        double value = Double.parseDouble(m.group(1));
         if (!Double.isFinite(value)) {
-            throw new IllegalArgumentException("'" + text + "' is too large, expected a finite " + kind.description());
+            throw badNumber("'" + text + "' is too large, expected a finite " + kind.description());
         }
-        String symbol = normaliseSymbol(m.group(2));
+        String symbol = normaliseSymbol(rest);
         if (symbol.isEmpty() && !allowBare && kind.unit("") == null) {
-            throw new IllegalArgumentException("'" + text + "' has no unit, expected a " + kind.description()
+            throw badUnit("'" + text + "' has no unit, expected a " + kind.description()
                     + expectedUnits(kind));
         }
         UnitKind.Unit unit = symbol.isEmpty() && kind.unit("") == null
@@ -53,12 +78,12 @@ public final class Quantities {
             UnitKind other = kindOf(symbol);
             String hint = other != null ? " ('" + symbol + "' is a " + other.description() + " unit)"
                     : didYouMean(symbol, kind);
-            throw new IllegalArgumentException("unit '" + symbol + "' in '" + text + "' is not a "
+            throw badUnit("unit '" + symbol + "' in '" + text + "' is not a "
                     + kind.description() + " unit" + hint + expectedUnits(kind));
         }
         double si = unit.toSi(value);
         if (!Double.isFinite(si)) {
-            throw new IllegalArgumentException("'" + text + "' is too large");
+            throw badNumber("'" + text + "' is too large");
         }
         return si;
     }

@@ -26,6 +26,9 @@ public final class YamlNode {
     private final Map<String, NodeTuple> entries;
     private final Set<String> allowed = new LinkedHashSet<>();
     private final Set<Node> seen;
+    /** Children already handed out, so that reading a key twice is not mistaken for an alias. */
+    private final Map<String, YamlNode> children = new LinkedHashMap<>();
+    private List<YamlNode> itemList;
 
     private YamlNode(String file, String path, Node node, Set<Node> seen) {
         this.file = file;
@@ -120,9 +123,9 @@ public final class YamlNode {
             if (!isMapping()) {
                 throw error(ErrorKind.WRONG_TYPE, "expected a mapping of keys, found " + describe());
             }
-            throw error(ErrorKind.MISSING_KEY, "missing key '" + key + "'");
+            throw missing(key);
         }
-        return new YamlNode(file, join(path, key), t.getValueNode(), seen);
+        return children.computeIfAbsent(key, k -> new YamlNode(file, join(path, k), t.getValueNode(), seen));
     }
 
     /** A mapping child; must be present and be a mapping. */
@@ -144,12 +147,33 @@ public final class YamlNode {
         if (!(node instanceof SequenceNode s)) {
             throw error(ErrorKind.WRONG_TYPE, "expected a list, found " + describe());
         }
-        List<YamlNode> out = new ArrayList<>();
-        int i = 0;
-        for (Node n : s.getValue()) {
-            out.add(new YamlNode(file, path + "[" + (++i) + "]", n, seen));
+        if (itemList == null) {
+            List<YamlNode> out = new ArrayList<>();
+            int i = 0;
+            for (Node n : s.getValue()) {
+                out.add(new YamlNode(file, path + "[" + (++i) + "]", n, seen));
+            }
+            itemList = List.copyOf(out);
         }
-        return out;
+        return itemList;
+    }
+
+    /**
+     * A required key is absent. If an unread key here is a near miss of it ("thicknes",
+     * "Height"), that key is reported as unknown with a did-you-mean, at its own line; short
+     * keys (under 3 letters) are too alike to guess from.
+     */
+    private InputException missing(String key) {
+        if (key.length() >= 3) {
+            for (Map.Entry<String, NodeTuple> e : entries.entrySet()) {
+                String k = e.getKey();
+                if (!allowed.contains(k) && Names.closest(k, List.of(key)) != null) {
+                    return new InputException(ErrorKind.UNKNOWN_KEY, file, join(path, k), line(e.getValue().getKeyNode()),
+                            "unknown key '" + k + "' (did you mean '" + key + "'?)");
+                }
+            }
+        }
+        return error(ErrorKind.MISSING_KEY, "missing key '" + key + "'");
     }
 
     /** This node's text; must be a scalar. */
@@ -172,8 +196,8 @@ public final class YamlNode {
     public double quantity(UnitKind kind) {
         try {
             return Quantities.parse(text(), kind, false);
-        } catch (IllegalArgumentException e) {
-            throw error(e.getMessage().contains("unit") ? ErrorKind.BAD_UNIT : ErrorKind.BAD_NUMBER, e.getMessage());
+        } catch (Quantities.BadQuantity e) {
+            throw error(e.kind(), e.getMessage());
         }
     }
 

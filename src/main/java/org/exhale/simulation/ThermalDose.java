@@ -10,7 +10,7 @@ public record ThermalDose(double activationEnergyJPerMol, double referenceK, dou
             throw new IllegalArgumentException("thermal dose activation energy must be in (0, 1000) kJ/mol");
         }
         if (!(referenceK > 0 && referenceK < 3000)) {
-            throw new IllegalArgumentException("thermal dose reference temperature must be positive");
+            throw new IllegalArgumentException("thermal dose reference temperature must be in (0, 3000) K, got " + referenceK + " K");
         }
         if (!(maxS > 0)) {
             throw new IllegalArgumentException("thermal dose maximum must be positive");
