@@ -218,9 +218,13 @@ final class CornerRun {
             }
             double v = samples[best][col];
             double tv = sampleTimes[best];
-            if (v > maxValue[c]) {
-                if (best > 0 && best < SAMPLES) {
-                    double[] refined = refineMax(step, col, sampleTimes[best - 1], sampleTimes[best + 1]);
+            if (v >= maxValue[c]) {
+                // refine around an interior best sample; at an end of the step only when the
+                // parabola through the three end samples peaks inside the end interval
+                if (best > 0 && best < SAMPLES || best == SAMPLES && vertexInside(col, SAMPLES - 2)
+                        || best == 0 && vertexInside(col, 0)) {
+                    double[] refined = refineMax(step, col, sampleTimes[Math.max(best - 1, 0)],
+                            sampleTimes[Math.min(best + 1, SAMPLES)]);
                     if (refined[1] > v) {
                         v = refined[1];
                         tv = refined[0];
@@ -276,6 +280,24 @@ final class CornerRun {
             model.observe(t, scratchState, scratchObs);
             return scratchObs[model.oUnconverted] - level;
         }, ta, tb);
+    }
+
+    /** Whether the parabola through samples i, i+1, i+2 of a column is concave with its vertex in [t_i, t_{i+2}]. */
+    private boolean vertexInside(int col, int i) {
+        double x0 = sampleTimes[i];
+        double x1 = sampleTimes[i + 1];
+        double x2 = sampleTimes[i + 2];
+        double y0 = samples[i][col];
+        double y1 = samples[i + 1][col];
+        double y2 = samples[i + 2][col];
+        double d1 = (y1 - y0) / (x1 - x0);
+        double d2 = (y2 - y1) / (x2 - x1);
+        double curvature = (d2 - d1) / (x2 - x0);
+        if (!(curvature < 0)) {
+            return false;
+        }
+        double vertex = 0.5 * (x0 + x1) - d1 / (2 * curvature);
+        return vertex > x0 && vertex < x2;
     }
 
     /** Golden-section search for the maximum of one observable on [a, b]; returns {t, value}. */
