@@ -156,11 +156,12 @@ public final class CaseYamlReader {
         Limits limits = limits(root.section("limits"));
         Recipe recipe = root.has("recipe") ? recipe(root.section("recipe")) : null;
         Tool tool = root.has("tool") ? tool(root.section("tool")) : null;
-        root.allow("name", "substrate", "ambient", "wafer", "recipe", "tool");
+        org.exhale.simulation.Chamber chamber = root.has("chamber") ? chamber(root.section("chamber")) : null;
+        root.allow("name", "substrate", "ambient", "wafer", "recipe", "tool", "chamber");
         root.finish();
         double cte = substrateCte;
         BakeCase bake = build(root, () -> new BakeCase(caseName, polymer, cavity, cap, film, cte,
-                ambient, wafer, limits, recipe));
+                ambient, wafer, limits, recipe, chamber));
         // The simulation makes the cap structure; make it here once so that its checks (a cap
         // thicker than 100 spans, ...) are input errors, not an internal error mid-run.
         build(capNode.get("thickness"), bake::capStructure);
@@ -511,6 +512,45 @@ public final class CaseYamlReader {
         double unload = t.quantity("unload", UnitKind.TEMPERATURE, Double.NaN, 1, 3000, "a temperature such as 150 C");
         t.finish();
         return build(t, () -> new Tool(up, down, sp, ts, ms, n, unload));
+    }
+
+    // ---------------------------------------------------------------- chamber
+
+    private org.exhale.simulation.Chamber chamber(YamlNode c) {
+        int wafers = (int) c.requiredNumber("wafers", 1, 10_000);
+        if (wafers != c.requiredNumber("wafers", 1, 10_000)) {
+            throw c.get("wafers").error(ErrorKind.BAD_NUMBER, "wafers must be a whole number");
+        }
+        double d = c.requiredQuantity("wafer_diameter", UnitKind.LENGTH, 1e-3, 1, "a diameter such as 300 mm");
+        double fp = c.quantity("pattern_fraction", UnitKind.FRACTION, 1, 1e-6, 1, "a fraction in (0, 1]");
+        double fc = c.quantity("cavity_fraction", UnitKind.FRACTION, 1, 1e-6, 1, "a fraction in (0, 1]");
+        double v = c.requiredQuantity("volume", UnitKind.VOLUME, 1e-6, 999, "a volume such as 60 L");
+        double t = c.requiredQuantity("temperature", UnitKind.TEMPERATURE, 1, 2999, "a temperature such as 250 C");
+        double p = c.requiredQuantity("pressure", UnitKind.PRESSURE, 1, 1e7 - 1, "a pressure above 0 such as 101.325 kPa");
+        double f = c.requiredQuantity("purge", UnitKind.STANDARD_FLOW, 1e-9, 999, "a purge flow such as 10 slm");
+        double limit = Double.NaN;
+        String label = "";
+        if (c.has("limit")) {
+            limit = c.quantity("limit", UnitKind.FRACTION, Double.NaN, 1e-12, 0.999, "a concentration such as 1000 ppm");
+            label = c.string("limit").trim();
+            if (c.has("lel")) {
+                throw c.get("lel").error(ErrorKind.INCONSISTENT, "give either 'limit' or 'lel' with 'lel_fraction', not both");
+            }
+        } else if (c.has("lel")) {
+            double lel = c.quantity("lel", UnitKind.FRACTION, Double.NaN, 1e-6, 0.999, "a lower explosive limit such as 2 %");
+            double frac = c.quantity("lel_fraction", UnitKind.FRACTION, 0.25, 1e-6, 1, "a fraction of the LEL such as 25 %");
+            if (!c.has("lel_fraction")) {
+                defaults.add("chamber.lel_fraction = 25 %");
+            }
+            limit = lel * frac;
+            label = Numbers.sig(frac * 100, 3) + " % of LEL " + Numbers.sig(lel * 100, 3) + " %";
+        } else {
+            c.allow("lel_fraction");
+        }
+        c.finish();
+        double fl = limit;
+        String fLabel = label;
+        return build(c, () -> new org.exhale.simulation.Chamber(wafers, d, fp, fc, v, t, p, f, fl, fLabel));
     }
 
     // ---------------------------------------------------------------- warnings

@@ -37,8 +37,24 @@ public final class SummaryJsonWriter {
         m.put("gas_regime", r.regime().label());
         m.put("mass_balance_error", num(r.massBalanceError()));
         if (r.bake().film() != null) {
-            m.put("peak_cap_stress_Pa", num(maxOver(r, "edge_stress_Pa").value()));
-            m.put("peak_deflection_m", num(maxOver(r, "deflection_m").value()));
+            m.put("peak_cap_stress_Pa", num(r.max("edge_stress_Pa").value()));
+            m.put("peak_deflection_m", num(r.max("deflection_m").value()));
+        }
+        if (r.bake().chamber() != null) {
+            m.put("peak_chamber_load_sccm", num(r.max("chamber_load_sccm").value()));
+            m.put("peak_chamber_load_time_s", num(r.max("chamber_load_sccm").timeS()));
+            m.put("peak_chamber_ppm", num(r.max("chamber_ppm").value()));
+            m.put("peak_chamber_ppm_time_s", num(r.max("chamber_ppm").timeS()));
+            CornerResult hot = r.hottest();
+            double[] last = hot.history().isEmpty() ? null : hot.history().get(hot.history().size() - 1);
+            if (last != null) {
+                m.put("evolved_mass_g", num(last[hot.column("evolved_g")]));
+                double evolved = last[hot.column("evolved_mol")];
+                double held = last[hot.column("chamber_mol")];
+                double out = last[hot.column("exhausted_mol")];
+                m.put("chamber_mass_balance_error", num(Math.abs(evolved - held - out) / Math.max(evolved, 1e-300)));
+            }
+            m.put("chamber_residence_time_s", num(r.bake().chamber().residenceTimeS()));
         }
         m.put("recipe_duration_s", num(r.bake().recipe().durationS()));
         m.put("seed_conversion", r.bake().polymer().seedConversion());
@@ -64,7 +80,11 @@ public final class SummaryJsonWriter {
         }
         m.put("corners", corners);
         m.put("warnings", warnings);
-        m.put("cautions", Cautions.BAKE);
+        List<String> cautions = new ArrayList<>(Cautions.BAKE);
+        if (r.bake().chamber() != null) {
+            cautions.addAll(Cautions.CHAMBER);
+        }
+        m.put("cautions", cautions);
         return m;
     }
 
@@ -90,17 +110,6 @@ public final class SummaryJsonWriter {
             out.put(g.limit(), e);
         }
         return out;
-    }
-
-    private static Extremum maxOver(BakeResult r, String column) {
-        Extremum best = null;
-        for (CornerResult c : r.corners()) {
-            Extremum e = c.max(column);
-            if (best == null || e.value() > best.value()) {
-                best = e;
-            }
-        }
-        return best;
     }
 
     /** A finite number, or null. */

@@ -28,12 +28,22 @@ public final class TextSummary {
                 .append(minutes(r.timeToTargetS())).append('\n');
         sb.append("Final unconverted polymer: ").append(Numbers.sig(r.finalUnconverted() * 100, 3)).append(" %\n");
         sb.append(String.format(Locale.ROOT, "Max wafer temperature: %.2f C%n", r.maxWaferTemperatureK() - c0));
+        if (r.bake().chamber() != null) {
+            sb.append(String.format(Locale.ROOT, "Chamber (%d wafers, well mixed): peak load %s sccm, peak %s ppm of products%n",
+                    r.bake().chamber().wafers(), Numbers.sig(r.max("chamber_load_sccm").value(), 4),
+                    Numbers.sig(r.max("chamber_ppm").value(), 4)));
+        }
         sb.append("Limits:\n");
         for (Margin m : r.margins()) {
             sb.append("  ").append(line(m)).append('\n');
         }
         for (String w : warnings) {
             sb.append("Warning: ").append(w).append('\n');
+        }
+        if (r.bake().chamber() != null) {
+            for (String c : Cautions.CHAMBER) {
+                sb.append("Caution: ").append(c).append('\n');
+            }
         }
         return sb.toString();
     }

@@ -32,6 +32,9 @@ final class BakeModel {
     final int iGas;
     final int iVent;
     final int iDose;
+    /** First chamber state (normalised product in the chamber), then the exhausted amounts; −1 without a chamber. */
+    final int iChamber;
+    final int iExhaust;
     final int dim;
 
     private final double lagS;
@@ -52,6 +55,13 @@ final class BakeModel {
     private final CapStructure structure;
 
     private Segment segment;
+    /** Gasifiable moles of each product in the whole load [mol]. */
+    private final double[] loadMoles;
+    private final double[] molarMass;
+    /** R T_ch/(p_ch V_ch): mole fraction per mole in the chamber [1/mol]. */
+    private final double chamberPerMole;
+    private final double purge;
+    private final double[] vent = new double[8];
     private double waferAtSegmentStart;
 
     // scratch, reused on every call
@@ -81,6 +91,10 @@ final class BakeModel {
     final int oCrack;
     final int oDelam;
     final int oCompression;
+    /** Chamber columns: load [sccm], total ppm, ppm per product, moles in chamber, exhausted, evolved; −1 without. */
+    final int oLoad;
+    final int oPpm;
+    final int oChamberMoles;
     final int observableCount;
 
     BakeModel(BakeCase bake, double offsetK, GasRegime regime) {
@@ -131,8 +145,35 @@ final class BakeModel {
             iVent = -1;
         }
         iDose = next++;
+        Chamber ch = bake.chamber();
+        if (ch != null) {
+            iChamber = next;
+            iExhaust = next + k;
+            next += 2 * k;
+            loadMoles = new double[k];
+            double area = ch.ventAreaM2();
+            for (int j = 0; j < k; j++) {
+                loadMoles[j] = area * gasifiable[j];
+            }
+            chamberPerMole = R * ch.temperatureK() / (ch.pressurePa() * ch.volumeM3());
+            purge = ch.purgeMolPerS();
+            molarMass = new double[k];
+            for (int j = 0; j < k; j++) {
+                molarMass[j] = components[j].product().molarMassKgPerMol();
+            }
+        } else {
+            iChamber = -1;
+            iExhaust = -1;
+            loadMoles = null;
+            molarMass = null;
+            chamberPerMole = 0;
+            purge = 0;
+        }
         dim = next;
 
+        if (k > vent.length) {
+            throw new IllegalArgumentException("at most " + vent.length + " components");
+        }
         rate = new double[k];
         gen = new double[k];
         perm = new double[k];
@@ -156,10 +197,19 @@ final class BakeModel {
             oCrack = oFilmStress + 5;
             oDelam = oFilmStress + 6;
             oCompression = oFilmStress + 7;
-            observableCount = oFilmStress + 8;
+            next = oFilmStress + 8;
         } else {
             oFilmStress = oEdgeStress = oDeflection = oCrack = oDelam = oCompression = -1;
-            observableCount = oVented + 1;
+            next = oVented + 1;
+        }
+        if (iChamber >= 0) {
+            oLoad = next;
+            oPpm = next + 1;
+            oChamberMoles = next + 2 + k;
+            observableCount = oChamberMoles + 4;
+        } else {
+            oLoad = oPpm = oChamberMoles = -1;
+            observableCount = next;
         }
     }
 
@@ -194,6 +244,17 @@ final class BakeModel {
         if (structure != null) {
             out.addAll(List.of("film_stress_Pa", "bending_stress_Pa", "membrane_stress_Pa", "edge_stress_Pa",
                     "deflection_m", "crack_release_J_m2", "delamination_release_J_m2", "compression_Pa"));
+        }
+        if (iChamber >= 0) {
+            out.add("chamber_load_sccm");
+            out.add("chamber_ppm");
+            for (String n : names) {
+                out.add("chamber_ppm_" + n);
+            }
+            out.add("chamber_mol");
+            out.add("exhausted_mol");
+            out.add("evolved_mol");
+            out.add("evolved_g");
         }
         return out;
     }
@@ -262,6 +323,21 @@ final class BakeModel {
             }
         }
         dy[iDose] = hasDose ? Math.exp(-doseEOverR * (1 / temp - doseInvRef)) : 0;
+        if (iChamber >= 0) {
+            // well-mixed purged chamber: dN_j/dt = Q_j − (F + ΣQ) y_j, in units of the load's moles
+            double total = 0;
+            for (int j = 0; j < k; j++) {
+                double phi = regime == GasRegime.FULL_GAS ? dy[iVent + j] : rate[j];
+                vent[j] = phi;
+                total += loadMoles[j] * phi;
+            }
+            double out = (purge + total) * chamberPerMole;
+            for (int j = 0; j < k; j++) {
+                double flow = out * loadMoles[j] * y[iChamber + j];
+                dy[iChamber + j] = vent[j] - flow / loadMoles[j];
+                dy[iExhaust + j] = flow / loadMoles[j];
+            }
+        }
     }
 
     /** Everything reported at an instant, SI units, into {@code out} (length {@link #observableCount}). */
@@ -331,7 +407,36 @@ final class BakeModel {
             out[oDelam] = r.delaminationJPerM2();
             out[oCompression] = r.bucklingCompressionPa();
         }
+        if (iChamber >= 0) {
+            double load = 0;
+            double ppm = 0;
+            double inChamber = 0;
+            double exhausted = 0;
+            double evolved = 0;
+            double grams = 0;
+            for (int j = 0; j < k; j++) {
+                double phi = regime == GasRegime.FULL_GAS ? (perm[j] + c) * part[j] / gasifiable[j] : rate[j];
+                load += loadMoles[j] * phi;
+                double nj = loadMoles[j] * y[iChamber + j];
+                double pj = 1e6 * nj * chamberPerMole;
+                out[oPpm + 1 + j] = pj;
+                ppm += pj;
+                inChamber += nj;
+                exhausted += loadMoles[j] * y[iExhaust + j];
+                double ej = loadMoles[j] * (regime == GasRegime.FULL_GAS ? y[iVent + j] : Math.min(y[j], 1) - alpha0[j]);
+                evolved += ej;
+                grams += 1e3 * ej * molarMass[j];
+            }
+            out[oLoad] = load / PhysicalConstants.MOL_PER_S_PER_SCCM;
+            out[oPpm] = ppm;
+            out[oChamberMoles] = inChamber;
+            out[oChamberMoles + 1] = exhausted;
+            out[oChamberMoles + 2] = evolved;
+            out[oChamberMoles + 3] = grams;
+        }
     }
+
+
 
     CapStructure structure() {
         return structure;

@@ -75,6 +75,18 @@ public record BakeResult(BakeCase bake, List<CornerResult> corners, List<Margin>
         return best;
     }
 
+    /** The largest value of a tracked history column over all corners. */
+    public Extremum max(String column) {
+        Extremum best = null;
+        for (CornerResult c : corners) {
+            Extremum e = c.max(column);
+            if (e != null && (best == null || e.value() > best.value())) {
+                best = e;
+            }
+        }
+        return best;
+    }
+
     public double peakExcessPressurePa() {
         return pressureCorner().peakPressure().value();
     }

@@ -64,10 +64,15 @@ final class CornerRun {
         this.corner = corner;
         this.offsetK = offsetK;
         this.columns = model.observableNames();
-        this.tracked = model.structure() == null
-                ? new int[]{model.oSetpoint, model.oWafer, model.oPressure, model.oRelax, model.oStored}
-                : new int[]{model.oSetpoint, model.oWafer, model.oPressure, model.oRelax, model.oStored,
-                            model.oEdgeStress, model.oDeflection, model.oCrack, model.oDelam, model.oCompression};
+        java.util.List<Integer> t = new java.util.ArrayList<>(java.util.List.of(
+                model.oSetpoint, model.oWafer, model.oPressure, model.oRelax, model.oStored));
+        if (model.structure() != null) {
+            t.addAll(java.util.List.of(model.oEdgeStress, model.oDeflection, model.oCrack, model.oDelam, model.oCompression));
+        }
+        if (model.oLoad >= 0) {
+            t.addAll(java.util.List.of(model.oLoad, model.oPpm));
+        }
+        this.tracked = t.stream().mapToInt(Integer::intValue).toArray();
         this.maxValue = new double[tracked.length];
         this.maxTime = new double[tracked.length];
         this.maxRow = new double[tracked.length][];
@@ -166,6 +171,12 @@ final class CornerRun {
             }
         }
         a[model.iDose] = 1e-6;
+        if (model.iChamber >= 0) {
+            for (int j = 0; j < model.k; j++) {
+                a[model.iChamber + j] = 1e-14;
+                a[model.iExhaust + j] = 1e-12;
+            }
+        }
         return a;
     }
 

@@ -60,6 +60,17 @@ final class Margins {
             out.add(Margin.ratio("thermal_dose", limits.dose().maxS(), d.thermalDoseS(),
                     bake.recipe().durationS(), d.corner(), "s", ""));
         }
+        if (bake.chamber() != null && bake.chamber().hasLimit()) {
+            CornerResult w = corners.get(0);
+            for (CornerResult c : corners) {
+                if (c.max("chamber_ppm").value() > w.max("chamber_ppm").value()) {
+                    w = c;
+                }
+            }
+            Extremum e = w.max("chamber_ppm");
+            out.add(Margin.ratio("chamber", bake.chamber().limitFraction() * 1e6, e.value(), e.timeS(), w.corner(), "ppm",
+                    bake.chamber().limitLabel()));
+        }
         CapStructure cap = bake.capStructure();
         if (cap != null) {
             mechanical(out, corners, "strength", cap.allowedStressPa(), "edge_stress_Pa", "Pa");
