@@ -113,6 +113,16 @@ public final class CaseEcho {
         return out;
     }
 
+    /** Every key path with a unit kind that a case file may hold (list indices removed, e.g. {@code recipe.steps[].hold}). */
+    public static java.util.Set<String> knownPaths() {
+        return KINDS.keySet();
+    }
+
+    /** The key path of an entry with list indices removed. */
+    public static String pattern(String path) {
+        return path.replaceAll("\\[\\d+]", "[]");
+    }
+
     /** The kind of quantity at a key path (list indices removed), or null. */
     public static UnitKind kindAt(String pathWithoutIndices) {
         return KINDS.get(pathWithoutIndices);
