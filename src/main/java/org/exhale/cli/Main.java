@@ -41,6 +41,7 @@ public final class Main implements Runnable {
 
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
+        giveVersionToAll(cl);
         cl.setExecutionExceptionHandler(Main::handle);
         cl.setParameterExceptionHandler((ex, a) -> {
             PrintWriter err = ex.getCommandLine().getErr();
@@ -49,6 +50,16 @@ public final class Main implements Runnable {
             return BAD_INPUT;
         });
         return cl;
+    }
+
+    /** Every subcommand answers --version with the root's version provider. */
+    private static void giveVersionToAll(CommandLine cl) {
+        for (CommandLine sub : cl.getSubcommands().values()) {
+            if (sub.getCommandSpec().versionProvider() == null) {
+                sub.getCommandSpec().versionProvider(cl.getCommandSpec().versionProvider());
+            }
+            giveVersionToAll(sub);
+        }
     }
 
     private static int handle(Exception ex, CommandLine cl, CommandLine.ParseResult parse) {
