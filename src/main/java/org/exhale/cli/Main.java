@@ -14,7 +14,8 @@ import picocli.CommandLine.Command;
                 + "the trapped pressure and the cap's stresses; plans the shortest recipe that meets every limit; "
                 + "fits kinetics from thermogravimetric runs.",
                 "Predictions are estimates: confirm recipes on test wafers and follow your site's safety rules."},
-        subcommands = {SimulateCommand.class, PlanCommand.class, FitCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
+        subcommands = {NewCommand.class, CheckCommand.class, SimulateCommand.class, PlanCommand.class, FitCommand.class,
+                DemoCommand.class, CompletionCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 all limits met; 1 internal error; 2 bad input; 3 a limit is violated; "
                 + "4 no feasible recipe."})
 public final class Main implements Runnable {
@@ -40,6 +41,7 @@ public final class Main implements Runnable {
 
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
+        giveVersionToAll(cl);
         cl.setExecutionExceptionHandler(Main::handle);
         cl.setParameterExceptionHandler((ex, a) -> {
             PrintWriter err = ex.getCommandLine().getErr();
@@ -48,6 +50,16 @@ public final class Main implements Runnable {
             return BAD_INPUT;
         });
         return cl;
+    }
+
+    /** Every subcommand answers --version with the root's version provider. */
+    private static void giveVersionToAll(CommandLine cl) {
+        for (CommandLine sub : cl.getSubcommands().values()) {
+            if (sub.getCommandSpec().versionProvider() == null) {
+                sub.getCommandSpec().versionProvider(cl.getCommandSpec().versionProvider());
+            }
+            giveVersionToAll(sub);
+        }
     }
 
     private static int handle(Exception ex, CommandLine cl, CommandLine.ParseResult parse) {
