@@ -81,6 +81,19 @@ public final class Exhale {
         return CaseTemplates.text(kind, dense);
     }
 
-    // Planning goes here: a static plan(...) entry point, returning the planner's result record, will be
-    // added beside simulate(...) once org.exhale.planning.Planner is complete; it is deliberately absent now.
+    /**
+     * Plans the shortest recipe that meets every limit (the case's recipe gives the start
+     * temperature; the tool's abilities come from its tool section).
+     */
+    public static org.exhale.planning.PlanResult plan(CaseFile caseFile) {
+        if (caseFile.tool() == null) {
+            throw new IllegalArgumentException(caseFile.path() + ": planning needs a 'tool' section");
+        }
+        return org.exhale.planning.Planner.plan(caseFile.bake(), caseFile.tool());
+    }
+
+    /** Plans with an explicit tool. */
+    public static org.exhale.planning.PlanResult plan(BakeCase bake, org.exhale.planning.Tool tool) {
+        return org.exhale.planning.Planner.plan(bake, tool);
+    }
 }
