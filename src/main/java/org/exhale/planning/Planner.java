@@ -60,7 +60,7 @@ public final class Planner {
         this.tool = tool;
         this.startK = bake.recipeStartK();
         this.capK = floorSetpoint(bake.limits().ceilingK() - bake.wafer().spreadK(), tool.setpointStepK());
-        this.search = new SimulationSettings(0, 1e-7, GasRegime.QUASI_STEADY, false);
+        this.search = new SimulationSettings(0, 1e-7, 1e-5, GasRegime.QUASI_STEADY, false);
     }
 
     public static PlanResult plan(BakeCase bake, Tool tool) {

@@ -21,8 +21,12 @@ import org.hipparchus.ode.sampling.ODEStateInterpolator;
  * method, and the quasi-steady error estimate.
  */
 final class CornerRun {
-    /** Samples per accepted step at which observables are evaluated. */
-    private static final int SAMPLES = 8;
+    /**
+     * Samples per accepted step at which observables are evaluated: 8 across the long steps of the
+     * eighth-order explicit method, 3 across the many short steps of the second-order Rosenbrock
+     * method (whose dense output is only quadratic).
+     */
+    private final int samplesPerStep;
 
     private final BakeModel model;
     private final Recipe recipe;
@@ -77,8 +81,9 @@ final class CornerRun {
         this.maxTime = new double[tracked.length];
         this.maxRow = new double[tracked.length][];
         java.util.Arrays.fill(maxValue, Double.NEGATIVE_INFINITY);
-        this.samples = new double[SAMPLES + 1][model.observableCount];
-        this.sampleTimes = new double[SAMPLES + 1];
+        this.samplesPerStep = regime == GasRegime.FULL_GAS && !settings.explicitFullGas() ? 3 : 8;
+        this.samples = new double[samplesPerStep + 1][model.observableCount];
+        this.sampleTimes = new double[samplesPerStep + 1];
         this.scratchState = new double[model.dim];
         this.scratchObs = new double[model.observableCount];
     }
@@ -93,7 +98,7 @@ final class CornerRun {
         DormandPrince853Integrator explicit = null;
         boolean useRosenbrock = model.regime == GasRegime.FULL_GAS && !settings.explicitFullGas();
         if (useRosenbrock) {
-            stiff = new RosenbrockIntegrator(Math.max(rtol, 1e-10), absTol);
+            stiff = new RosenbrockIntegrator(settings.stiffRelativeTolerance(), absTol);
         } else {
             explicit = new DormandPrince853Integrator(1e-9, 1e7, absTol, fill(rtol, absTol.length));
         }
@@ -114,9 +119,9 @@ final class CornerRun {
         for (Segment seg : segments) {
             model.setSegment(seg);
             if (first) {
-                model.observe(seg.startTimeS(), y, samples[SAMPLES]);
-                sampleTimes[SAMPLES] = seg.startTimeS();
-                initialObservation(samples[SAMPLES]);
+                model.observe(seg.startTimeS(), y, samples[samplesPerStep]);
+                sampleTimes[samplesPerStep] = seg.startTimeS();
+                initialObservation(samples[samplesPerStep]);
                 first = false;
             }
             if (seg.durationS() <= 0) {
@@ -132,13 +137,13 @@ final class CornerRun {
                 count[0] += explicit.getEvaluations();
             }
             // segment end always recorded
-            double[] last = samples[SAMPLES];
+            double[] last = samples[samplesPerStep];
             if (settings.sampleIntervalS() > 0 && (history.isEmpty() || history.get(history.size() - 1)[0] < last[0])) {
                 history.add(last.clone());
             }
         }
         evaluations = useRosenbrock ? stiff.evaluations() : count[0];
-        double[] end = samples[SAMPLES];
+        double[] end = samples[samplesPerStep];
         double gasified = end[model.oGasified];
         double balance = model.regime == GasRegime.FULL_GAS
                 ? Math.abs(gasified - end[model.oVented] - end[model.oStored]) / Math.max(gasified, 1e-300)
@@ -197,13 +202,13 @@ final class CornerRun {
     private void onStep(StepView step) {
         double t0 = step.start();
         double t1 = step.end();
-        // samples[SAMPLES] holds the observation at t0 from the previous step
+        // samples[samplesPerStep] holds the observation at t0 from the previous step
         double[] tmp = samples[0];
-        samples[0] = samples[SAMPLES];
-        samples[SAMPLES] = tmp;
+        samples[0] = samples[samplesPerStep];
+        samples[samplesPerStep] = tmp;
         sampleTimes[0] = t0;
-        for (int i = 1; i <= SAMPLES; i++) {
-            double t = i == SAMPLES ? t1 : t0 + (t1 - t0) * i / SAMPLES;
+        for (int i = 1; i <= samplesPerStep; i++) {
+            double t = i == samplesPerStep ? t1 : t0 + (t1 - t0) * i / samplesPerStep;
             sampleTimes[i] = t;
             step.state(t, scratchState);
             model.observe(t, scratchState, samples[i]);
@@ -222,7 +227,7 @@ final class CornerRun {
         for (int c = 0; c < tracked.length; c++) {
             int col = tracked[c];
             int best = 0;
-            for (int i = 1; i <= SAMPLES; i++) {
+            for (int i = 1; i <= samplesPerStep; i++) {
                 if (samples[i][col] > samples[best][col]) {
                     best = i;
                 }
@@ -232,10 +237,10 @@ final class CornerRun {
             if (v >= maxValue[c]) {
                 // refine around an interior best sample; at an end of the step only when the
                 // parabola through the three end samples peaks inside the end interval
-                if (best > 0 && best < SAMPLES || best == SAMPLES && vertexInside(col, SAMPLES - 2)
+                if (best > 0 && best < samplesPerStep || best == samplesPerStep && vertexInside(col, samplesPerStep - 2)
                         || best == 0 && vertexInside(col, 0)) {
                     double[] refined = refineMax(step, col, sampleTimes[Math.max(best - 1, 0)],
-                            sampleTimes[Math.min(best + 1, SAMPLES)]);
+                            sampleTimes[Math.min(best + 1, samplesPerStep)]);
                     if (refined[1] > v) {
                         v = refined[1];
                         tv = refined[0];
@@ -243,19 +248,25 @@ final class CornerRun {
                 }
                 maxValue[c] = v;
                 maxTime[c] = tv;
-                step.state(tv, scratchState);
-                double[] row = new double[model.observableCount];
-                model.observe(tv, scratchState, row);
-                maxRow[c] = row;
+                // keep the whole row at the maximum, copied from the sample when it is one
+                if (maxRow[c] == null || maxRow[c].length != model.observableCount) {
+                    maxRow[c] = new double[model.observableCount];
+                }
+                if (tv == sampleTimes[best]) {
+                    System.arraycopy(samples[best], 0, maxRow[c], 0, model.observableCount);
+                } else {
+                    step.state(tv, scratchState);
+                    model.observe(tv, scratchState, maxRow[c]);
+                }
             }
         }
         // residue crossings
-        for (int i = 1; i <= SAMPLES; i++) {
+        for (int i = 1; i <= samplesPerStep; i++) {
             checkCrossings(samples[i - 1], samples[i], step);
         }
         // quasi-steady error estimate: τ_g |d ln n/dt| where the stored gas matters
         if (model.regime == GasRegime.QUASI_STEADY) {
-            for (int i = 1; i <= SAMPLES; i++) {
+            for (int i = 1; i <= samplesPerStep; i++) {
                 double n1 = samples[i][model.oStored];
                 double n0 = samples[i - 1][model.oStored];
                 storedPeak = Math.max(storedPeak, n1);

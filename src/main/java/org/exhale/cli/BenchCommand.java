@@ -1,0 +1,106 @@
+package org.exhale.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import java.util.function.Supplier;
+
+import org.exhale.io.CaseFile;
+import org.exhale.io.CaseYamlReader;
+import org.exhale.planning.Planner;
+import org.exhale.simulation.BakeCase;
+import org.exhale.simulation.BakeSimulator;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+@Command(name = "bench", mixinStandardHelpOptions = true,
+        header = "Measure simulation and planning speed on the demo cases.",
+        description = {"Times, side by side in one run, one simulation of each demo case (with and without the cap "
+                + "mechanics) and one plan of each, after a warm-up; prints the median, the quartiles and the ratios. "
+                + "The machines are noisy: compare figures from one run only."})
+final class BenchCommand implements Callable<Integer> {
+    @Option(names = "--data", paramLabel = "DIR", defaultValue = "data/demo", description = "Folder of the demo cases.")
+    Path data;
+
+    @Option(names = "--repeats", defaultValue = "30", description = "Timed repetitions of each simulation (default ${DEFAULT-VALUE}).")
+    int repeats;
+
+    @Option(names = "--plan-repeats", defaultValue = "5", description = "Timed repetitions of each plan (default ${DEFAULT-VALUE}).")
+    int planRepeats;
+
+    @Override
+    public Integer call() {
+        CaseFile porous = CaseYamlReader.read(data.resolve("porous-line.yaml"));
+        CaseFile dense = CaseYamlReader.read(data.resolve("dense-disc.yaml"));
+        Map<String, Supplier<Object>> sims = new LinkedHashMap<>();
+        sims.put("simulate porous-line (quasi-steady)", () -> BakeSimulator.simulate(porous.bake()));
+        sims.put("simulate porous-line without mechanics", () -> BakeSimulator.simulate(noMechanics(porous.bake())));
+        sims.put("simulate dense-disc (full gas)", () -> BakeSimulator.simulate(dense.bake()));
+        sims.put("simulate dense-disc without mechanics", () -> BakeSimulator.simulate(noMechanics(dense.bake())));
+        Map<String, Supplier<Object>> plans = new LinkedHashMap<>();
+        plans.put("plan porous-line", () -> Planner.plan(porous.bake(), porous.tool()));
+        plans.put("plan dense-disc", () -> Planner.plan(dense.bake(), dense.tool()));
+
+        // warm-up, interleaved
+        for (int i = 0; i < 20; i++) {
+            sims.values().forEach(Supplier::get);
+        }
+        plans.values().forEach(Supplier::get);
+        Map<String, double[]> times = new LinkedHashMap<>();
+        sims.keySet().forEach(k -> times.put(k, new double[repeats]));
+        for (int i = 0; i < repeats; i++) {
+            for (Map.Entry<String, Supplier<Object>> e : sims.entrySet()) {
+                times.get(e.getKey())[i] = time(e.getValue());
+            }
+        }
+        plans.keySet().forEach(k -> times.put(k, new double[planRepeats]));
+        for (int i = 0; i < planRepeats; i++) {
+            for (Map.Entry<String, Supplier<Object>> e : plans.entrySet()) {
+                times.get(e.getKey())[i] = time(e.getValue());
+            }
+        }
+        System.out.printf(Locale.ROOT, "%-42s %10s %10s %10s%n", "benchmark (ms, warm, one thread)", "median", "q1", "q3");
+        Map<String, Double> med = new LinkedHashMap<>();
+        for (Map.Entry<String, double[]> e : times.entrySet()) {
+            double[] t = e.getValue().clone();
+            Arrays.sort(t);
+            med.put(e.getKey(), quantile(t, 0.5));
+            System.out.printf(Locale.ROOT, "%-42s %10.2f %10.2f %10.2f%n", e.getKey(), quantile(t, 0.5), quantile(t, 0.25),
+                    quantile(t, 0.75));
+        }
+        List<String> ratios = new ArrayList<>();
+        ratios.add(String.format(Locale.ROOT, "mechanics cost, porous-line: %.2fx", med.get("simulate porous-line (quasi-steady)")
+                / med.get("simulate porous-line without mechanics")));
+        ratios.add(String.format(Locale.ROOT, "mechanics cost, dense-disc: %.2fx", med.get("simulate dense-disc (full gas)")
+                / med.get("simulate dense-disc without mechanics")));
+        ratios.forEach(System.out::println);
+        return Main.OK;
+    }
+
+    private static BakeCase noMechanics(BakeCase b) {
+        return b.withFilm(null);
+    }
+
+    private static double time(Supplier<Object> s) {
+        long t0 = System.nanoTime();
+        Object o = s.get();
+        long t1 = System.nanoTime();
+        if (o == null) {
+            throw new IllegalStateException("benchmark produced nothing");
+        }
+        return (t1 - t0) / 1e6;
+    }
+
+    private static double quantile(double[] sorted, double q) {
+        double pos = q * (sorted.length - 1);
+        int i = (int) Math.floor(pos);
+        int j = Math.min(i + 1, sorted.length - 1);
+        return sorted[i] + (pos - i) * (sorted[j] - sorted[i]);
+    }
+}
