@@ -40,11 +40,25 @@ final class BakeCharts {
     private final JsonNode margins;
     private final String subtitle;
     private final List<String> corners;
+    /** The bake's time span [min]: every chart shows all of it. */
+    private final double t0;
+    private final double t1;
 
     BakeCharts(CsvTable history, JsonNode margins, String caseName) {
         this.h = history;
         this.margins = margins == null ? com.fasterxml.jackson.databind.node.MissingNode.getInstance() : margins;
         this.subtitle = ReportText.label(caseName);
+        double t0 = Double.POSITIVE_INFINITY;
+        double t1 = Double.NEGATIVE_INFINITY;
+        for (int r = 0; r < history.size(); r++) {
+            double t = history.number(r, "time_s") / 60;
+            if (Double.isFinite(t)) {
+                t0 = Math.min(t0, t);
+                t1 = Math.max(t1, t);
+            }
+        }
+        this.t0 = t0;
+        this.t1 = t1 > t0 ? t1 : t0 + 1;
         List<String> cs = history.distinct("corner");
         this.corners = cs.isEmpty() ? java.util.Collections.singletonList(null) : cs;
     }
@@ -98,6 +112,7 @@ final class BakeCharts {
             return null;
         }
         PlotBuilder p = new PlotBuilder(TIME, "Temperature [°C]", false);
+        p.xRange(t0, t1);
         for (String c : corners) {
             int k = cornerIndex(c);
             p.add(PlotBuilder.series(name("wafer", c), h, c, "time_s", MIN, "wafer_C", SAME), k, 0, k, 3f, false);
@@ -108,7 +123,7 @@ final class BakeCharts {
         }
         double ceiling = allowed("ceiling");
         if (Double.isFinite(ceiling)) {
-            p.limit(ceiling, "ceiling " + ReportText.sig(ceiling, 4) + " °C");
+            p.limit(ceiling, "ceiling " + ReportText.plain(ceiling, 4) + " °C");
         }
         JFreeChart c = ChartStyle.chart("Setpoint and wafer temperature", p.build(), subtitle);
         return new Figure("temperature", "Setpoint and wafer temperature",
@@ -123,13 +138,14 @@ final class BakeCharts {
         double target = allowed("residue");
         double floor = Double.isFinite(target) ? target * 1e-3 : 1e-6;
         PlotBuilder p = new PlotBuilder(TIME, "Unconverted polymer [fraction, log scale]", true);
+        p.xRange(t0, t1);
         for (String c : corners) {
             int k = cornerIndex(c);
             XYSeries s = PlotBuilder.series(name("unconverted", c), h, c, "time_s", MIN, "unconverted", SAME);
             p.add(clipBelow(s, floor), k, k == 1 ? 0 : 1, k, 3f, false);
         }
         if (Double.isFinite(target)) {
-            p.limit(target, "residue target " + ReportText.sig(target * 100, 3) + " %");
+            p.limit(target, "residue target " + ReportText.plain(target * 100, 3) + " %");
         }
         p.range(floor, 1.5);
         String note = "values below " + ReportText.sig(floor, 2) + " are not drawn";
@@ -158,6 +174,7 @@ final class BakeCharts {
         double shown = Double.isFinite(allowed) && allowed <= PlotBuilder.OFF_SCALE * peak ? Math.max(peak, allowed) : peak;
         SiScale u = SiScale.of(shown, "Pa");
         PlotBuilder p = new PlotBuilder(TIME, "Excess pressure in the cavity [" + u.unit() + "]", false);
+        p.xRange(t0, t1);
         for (String c : corners) {
             int k = cornerIndex(c);
             p.add(PlotBuilder.series(name("total", c), h, c, "time_s", MIN, "excess_pressure_Pa", u::apply), k,
@@ -221,7 +238,7 @@ final class BakeCharts {
         }
         String note = notes.isEmpty() ? null : String.join("; ", notes);
         JFreeChart c = ChartStyle.chart("Cap stress, deflection and energy release", combined, subtitle, note);
-        ((NumberAxis) combined.getDomainAxis()).setAutoRangeIncludesZero(false);
+        combined.getDomainAxis().setRange(t0, t1);
         return new Figure("cap-mechanics", "Cap stress, deflection and energy release",
                 "Edge stress of the cap, its deflection, and the energy release rates of channel cracking and "
                         + "delamination at each corner, each against its allowed value.", c);
@@ -245,6 +262,7 @@ final class BakeCharts {
         boolean joule = siUnit.startsWith("J");
         SiScale u = joule ? new SiScale(1, siUnit) : SiScale.of(shown, siUnit);
         PlotBuilder p = new PlotBuilder(TIME, quantity + " [" + u.unit() + "]", false);
+        p.xRange(t0, t1);
         for (int i = 0; i < cols.length; i++) {
             if (!h.has(cols[i])) {
                 continue;
@@ -294,10 +312,12 @@ final class BakeCharts {
         String binding = binding(margins);
         double top = 1e3;
         PlotBuilder ratio = new PlotBuilder(TIME, "Margin, allowed / actual [–, log]", true);
+        ratio.xRange(t0, t1);
         int i = 0;
         double low = 0.5;
         double[] bindingPoint = null;
         List<String> skipped = new ArrayList<>();
+        List<String> idle = new ArrayList<>();
         for (Map.Entry<String, String> e : LIMIT_COLUMNS.entrySet()) {
             String limit = e.getKey();
             double a = allowed(limit);
@@ -316,13 +336,25 @@ final class BakeCharts {
             }
             XYSeries s = PlotBuilder.series(name(label, c), h, c, "time_s", MIN, e.getValue(),
                     v -> v > 0 ? a / v : Double.NaN);
-            XYSeries kept = new XYSeries(s.getKey(), false, true);
+            List<double[]> pts = new ArrayList<>();
+            double least = Double.POSITIVE_INFINITY;
             for (int k = 0; k < s.getItemCount(); k++) {
                 double y = s.getY(k).doubleValue();
                 if (Double.isFinite(y) && y > 0) {
-                    kept.add(s.getX(k), s.getY(k));
+                    pts.add(new double[]{s.getX(k).doubleValue(), y});
                     low = Math.min(low, y / 1.5);
+                    least = Math.min(least, y);
                 }
+            }
+            String key = (String) s.getKey();
+            if (least > top && Double.isFinite(least)) {
+                key += " (above " + ReportText.sig(top, 1) + ": least ×" + ReportText.sig(least, 2) + ")";
+            } else if (pts.isEmpty()) {
+                idle.add(limit);
+            }
+            XYSeries kept = new XYSeries(key, false, true);
+            for (double[] pt : pts) {
+                kept.add(pt[0], pt[1]);
             }
             if (ratio.add(kept, i, i, i, isBinding ? 4.5f : 2.2f, false) >= 0 && isBinding) {
                 JsonNode m = margins.path(limit);
@@ -360,6 +392,7 @@ final class BakeCharts {
         if (Double.isFinite(ceiling) && h.has("wafer_C")) {
             String c = worstCorner("ceiling");
             PlotBuilder head = new PlotBuilder(TIME, "Ceiling headroom [K]", false);
+        head.xRange(t0, t1);
             XYSeries s = new XYSeries(name("ceiling headroom", c), false, true);
             boolean byCorner = c != null && h.has("corner");
             for (int r = 0; r < h.size(); r++) {
@@ -374,14 +407,17 @@ final class BakeCharts {
                     s.add(h.number(r, "time_s") / 60, ceiling - t);
                 }
             }
-            head.add(s, 5, 0, 5, 2.6f, false);
+            head.add(s, 5, 0, 6, 2.6f, false);
             head.limit(0, "headroom 0: the ceiling");
-            combined.add(head.build(), 1);
+            XYPlot hp = head.build();
+            hp.getRenderer().setSeriesPaint(0, ChartStyle.INK);
+            combined.add(hp, 1);
         }
         String note = "margins above " + ReportText.sig(top, 1) + " run off the top"
+                + (idle.isEmpty() ? "" : "; never loaded: " + String.join(", ", idle))
                 + (skipped.isEmpty() ? "" : "; not drawn (no history column): " + String.join(", ", skipped));
         JFreeChart c = ChartStyle.chart("Every margin against time", combined, subtitle, ReportText.label(note));
-        ((NumberAxis) combined.getDomainAxis()).setAutoRangeIncludesZero(false);
+        combined.getDomainAxis().setRange(t0, t1);
         return new Figure("margins", "Every margin against time",
                 "For each limit, allowed over actual value at the corner where it is worst (below 1 the limit is "
                         + "broken); the binding limit is drawn thick. Below: headroom to the temperature ceiling.", c);

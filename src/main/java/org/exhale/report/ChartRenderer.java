@@ -11,12 +11,19 @@ import java.io.UncheckedIOException;
 import javax.imageio.ImageIO;
 
 import org.jfree.chart.JFreeChart;
+import org.jfree.chart.text.TextUtils;
 import org.jfree.svg.SVGGraphics2D;
 import org.jfree.svg.SVGHints;
 import org.jfree.svg.ViewBox;
 
 /** Draws a chart headless into SVG (real text elements) or PNG. */
 public final class ChartRenderer {
+    static {
+        // JFreeChart draws rotated text (the value-axis labels) through a TextLayout by default, which
+        // an SVG canvas can only record as outlines; plain drawString keeps them real, searchable text.
+        TextUtils.setUseDrawRotatedStringWorkaround(false);
+    }
+
     private ChartRenderer() {
     }
 
@@ -45,8 +52,12 @@ public final class ChartRenderer {
      * address but the SVG namespace.
      */
     static String clean(String svg) {
-        return svg.replaceAll("\\s+xmlns:jfreesvg=\"[^\"]*\"", "")
-                .replaceAll("\\s+jfreesvg:[A-Za-z-]+=\"[^\"]*\"", "");
+        String s = svg.replaceAll("\\s+xmlns:jfreesvg=(['\"])[^'\"]*\\1", "")
+                .replaceAll("\\s+jfreesvg:[A-Za-z-]+=(['\"])[^'\"]*\\1", "");
+        if (!s.contains("xlink:")) {
+            s = s.replaceAll("\\s+xmlns:xlink=(['\"])[^'\"]*\\1", "");
+        }
+        return s;
     }
 
     public static byte[] png(JFreeChart chart, int width, int height) {
@@ -55,7 +66,6 @@ public final class ChartRenderer {
         try {
             g.setRenderingHint(RenderingHints.KEY_ANTIALIASING, RenderingHints.VALUE_ANTIALIAS_ON);
             g.setRenderingHint(RenderingHints.KEY_TEXT_ANTIALIASING, RenderingHints.VALUE_TEXT_ANTIALIAS_ON);
-            g.setRenderingHint(RenderingHints.KEY_STROKE_CONTROL, RenderingHints.VALUE_STROKE_PURE);
             chart.draw(g, new Rectangle2D.Double(0, 0, width, height));
         } finally {
             g.dispose();

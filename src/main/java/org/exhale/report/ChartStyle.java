@@ -188,20 +188,25 @@ public final class ChartStyle {
         }
     }
 
-    /** A horizontal limit line with its label written at the right end, above the line. */
-    static ValueMarker limit(double value, String label) {
+    /** A horizontal limit line with its label written at the right end, below the line (or above it). */
+    static ValueMarker limit(double value, String label, boolean below) {
         ValueMarker m = new ValueMarker(value, LIMIT, line(3, 2.2f));
         m.setLabel(label);
         m.setLabelFont(NOTE);
         m.setLabelPaint(LIMIT);
         m.setLabelAnchor(RectangleAnchor.TOP_RIGHT);
-        m.setLabelTextAnchor(TextAnchor.BOTTOM_RIGHT);
+        m.setLabelTextAnchor(below ? TextAnchor.TOP_RIGHT : TextAnchor.BOTTOM_RIGHT);
+        m.setLabelBackgroundColor(new Color(255, 255, 255, 210));
         m.setLabelOffset(new RectangleInsets(4, 4, 4, 8));
         return m;
     }
 
     static void addLimit(XYPlot plot, double value, String label) {
-        plot.addRangeMarker(0, limit(value, label), Layer.FOREGROUND);
+        addLimit(plot, value, label, true);
+    }
+
+    static void addLimit(XYPlot plot, double value, String label, boolean below) {
+        plot.addRangeMarker(0, limit(value, label, below), Layer.FOREGROUND);
     }
 
     static Paint translucent(Color c, int alpha) {

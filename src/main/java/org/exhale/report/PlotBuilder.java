@@ -32,6 +32,7 @@ final class PlotBuilder {
     private final java.util.List<double[]> limits = new java.util.ArrayList<>();
     private final java.util.List<String> limitLabels = new java.util.ArrayList<>();
     private Range fixed;
+    private Range xRange;
 
     PlotBuilder(String xLabel, String yLabel, boolean logY) {
         NumberAxis x = new NumberAxis(xLabel);
@@ -45,7 +46,8 @@ final class PlotBuilder {
             y.setBase(10);
             y.setSmallestValue(1e-300);
             y.setMinorTickCount(9);
-            y.setNumberFormatOverride(new java.text.DecimalFormat("0.###E0"));
+            y.setNumberFormatOverride(new DecadeFormat());
+            y.setTickUnit(new org.jfree.chart.axis.NumberTickUnit(1));
             yAxis = y;
         } else {
             NumberAxis y = new NumberAxis(yLabel);
@@ -54,8 +56,12 @@ final class PlotBuilder {
         }
     }
 
+    /** Series longer than this are thinned for drawing, keeping each bucket's extremes (a slide is 1280 px wide). */
+    static final int MAX_POINTS = 600;
+
     /** Adds a series; returns its index, or -1 when it has no point. */
-    int add(XYSeries s, int colour, int dash, int shape, float width, boolean markersOnly) {
+    int add(XYSeries s0, int colour, int dash, int shape, float width, boolean markersOnly) {
+        XYSeries s = markersOnly ? s0 : thin(s0, MAX_POINTS);
         if (s.getItemCount() == 0) {
             return -1;
         }
@@ -77,6 +83,10 @@ final class PlotBuilder {
         limitLabels.add(label);
     }
 
+    void xRange(double lower, double upper) {
+        xRange = new Range(lower, upper);
+    }
+
     void range(double lower, double upper) {
         fixed = new Range(lower, upper);
     }
@@ -92,8 +102,10 @@ final class PlotBuilder {
     XYPlot build() {
         XYPlot plot = new XYPlot(data, xAxis, yAxis, renderer);
         plot.setOrientation(PlotOrientation.VERTICAL);
+        renderer.setLegendLine(new java.awt.geom.Line2D.Double(-18, 0, 18, 0));
         double a = lo;
         double b = hi;
+        java.util.List<Integer> drawn = new java.util.ArrayList<>();
         for (int i = 0; i < limits.size(); i++) {
             double v = limits.get(i)[0];
             if (!Double.isFinite(v) || (log && v <= 0)) {
@@ -104,9 +116,12 @@ final class PlotBuilder {
                 offScale.append(offScale.length() == 0 ? "" : "; ").append(limitLabels.get(i)).append(" is off scale");
                 continue;
             }
-            ChartStyle.addLimit(plot, v, limitLabels.get(i));
+            drawn.add(i);
             a = Math.min(a, v);
             b = Math.max(b, v);
+        }
+        if (xRange != null) {
+            xAxis.setRange(xRange);
         }
         if (fixed != null) {
             yAxis.setRange(fixed);
@@ -115,10 +130,56 @@ final class PlotBuilder {
                 yAxis.setRange(a / 2, b * 2);
             } else {
                 double pad = b > a ? 0.06 * (b - a) : Math.max(Math.abs(a) * 0.05, 1e-12);
-                yAxis.setRange(a - pad, b + pad);
+                // room above for the label of a limit drawn at the top
+                yAxis.setRange(a - pad, b + 1.6 * pad);
             }
         }
+        Range shown = yAxis.getRange();
+        for (int i : drawn) {
+            double v = limits.get(i)[0];
+            // the label goes on the side of the line with more room
+            double pos = log ? (Math.log(v) - Math.log(shown.getLowerBound()))
+                    / (Math.log(shown.getUpperBound()) - Math.log(shown.getLowerBound()))
+                    : (v - shown.getLowerBound()) / shown.getLength();
+            ChartStyle.addLimit(plot, v, limitLabels.get(i), pos > 0.5);
+        }
         return plot;
+    }
+
+    /**
+     * At most about {@code max} points: the series is cut into buckets of consecutive points and each
+     * bucket keeps its first, lowest, highest and last point, so peaks and steps survive.
+     */
+    static XYSeries thin(XYSeries s, int max) {
+        int n = s.getItemCount();
+        if (n <= max) {
+            return s;
+        }
+        int buckets = Math.max(1, max / 4);
+        XYSeries out = new XYSeries(s.getKey(), false, true);
+        for (int b = 0; b < buckets; b++) {
+            int from = (int) ((long) n * b / buckets);
+            int to = (int) ((long) n * (b + 1) / buckets);
+            if (to <= from) {
+                continue;
+            }
+            int lo = from;
+            int hi = from;
+            for (int i = from; i < to; i++) {
+                double y = s.getY(i).doubleValue();
+                if (y < s.getY(lo).doubleValue()) {
+                    lo = i;
+                }
+                if (y > s.getY(hi).doubleValue()) {
+                    hi = i;
+                }
+            }
+            java.util.TreeSet<Integer> keep = new java.util.TreeSet<>(java.util.List.of(from, lo, hi, to - 1));
+            for (int i : keep) {
+                out.add(s.getX(i), s.getY(i));
+            }
+        }
+        return out;
     }
 
     /** A series from two columns of one corner's rows; scale maps the stored value to the plotted one. */

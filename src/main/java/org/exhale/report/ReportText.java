@@ -62,6 +62,15 @@ public final class ReportText {
         return s.replace('-', '−');
     }
 
+    /** Like {@link #sig} without trailing zeros after the decimal point ("400", "2.5"): for labels of limits. */
+    public static String plain(double v, int digits) {
+        String s = sig(v, digits);
+        if (s.contains(".") && !s.contains("e")) {
+            s = s.replaceFirst("0+$", "").replaceFirst("\\.$", "");
+        }
+        return s;
+    }
+
     static String minutes(double s) {
         return Double.isFinite(s) ? sig(s / 60, 4) + " min" : "n/a";
     }

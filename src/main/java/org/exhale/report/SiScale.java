@@ -23,6 +23,6 @@ record SiScale(double factor, String unit) {
     }
 
     String format(double si) {
-        return ReportText.sig(si * factor, 3) + " " + unit;
+        return ReportText.plain(si * factor, 3) + " " + unit;
     }
 }
