@@ -1,6 +1,5 @@
 package org.exhale.report;
 
-import java.awt.BasicStroke;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -23,7 +22,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 final class FitCharts {
     private static final double C0 = PhysicalConstants.ZERO_CELSIUS_K;
     /** Measured points drawn per run: enough to see the scatter, few enough for a light page. */
-    private static final int MEASURED_POINTS = 120;
+    private static final int MEASURED_POINTS = 70;
 
     private final RunFolder f;
     private final String subtitle;
@@ -96,9 +95,9 @@ final class FitCharts {
         int i = 0;
         for (String run : runs(t)) {
             String n = run == null ? "" : runName(run) + " ";
-            p.add(thin(PlotBuilder.series(n + "measured", t, run, "temperature_K", k -> k - C0, "alpha_measured",
+            p.add(thin(PlotBuilder.series(n + "measured", t, "run", run, "temperature_K", k -> k - C0, "alpha_measured",
                     v -> v), MEASURED_POINTS), i, 0, i, 1f, true);
-            p.add(PlotBuilder.series(n + "model", t, run, "temperature_K", k -> k - C0, "alpha_model", v -> v), i, i,
+            p.add(PlotBuilder.series(n + "model", t, "run", run, "temperature_K", k -> k - C0, "alpha_model", v -> v), i, i,
                     i, 2.6f, false);
             i++;
         }
@@ -117,11 +116,11 @@ final class FitCharts {
         int i = 0;
         for (String run : runs(t)) {
             String n = run == null ? "residual" : runName(run);
-            p.add(thin(PlotBuilder.series(n, t, run, "temperature_K", k -> k - C0, "residual", v -> v), 300), i, i, i,
-                    1.4f, false);
+            p.add(thin(PlotBuilder.series(n, t, "run", run, "temperature_K", k -> k - C0, "residual", v -> v), 150), i, i, i,
+                    1f, true);
             i++;
         }
-        p.limit(0, "0");
+        p.limit(0, "no residual");
         JFreeChart c = ChartStyle.chart("Residuals of the model fit", p.build(), subtitle);
         return new Figure("residuals", "Residuals of the model fit",
                 "Measured minus model conversion against temperature for each run; a pattern rather than scatter "
@@ -240,7 +239,7 @@ final class FitCharts {
             return null;
         }
         PlotBuilder p = new PlotBuilder("1000 / peak temperature Tp [1/K]", "ln(β / Tp²) [β in K/s, Tp in K]", false);
-        int ptsIndex = p.add(pts, 0, 0, 1, 1f, true);
+        p.add(pts, 0, 0, 1, 1f, true);
         JsonNode k = j.path("kissinger");
         String eNote = null;
         if (k.path("Ea_kJ_mol").isNumber() && k.path("A_1_s").isNumber()) {
@@ -251,17 +250,18 @@ final class FitCharts {
             XYSeries line = new XYSeries("Kissinger line, Ea " + ReportText.sig(e / 1e3, 4)
                     + (k.path("Ea_ci_kJ_mol").isNumber() ? " ± " + ReportText.sig(k.path("Ea_ci_kJ_mol").asDouble(), 3) : "")
                     + " kJ/mol", false, true);
-            double x0 = pts.getMinX() - 0.01 * (pts.getMaxX() - pts.getMinX());
-            double x1 = pts.getMaxX() + 0.01 * (pts.getMaxX() - pts.getMinX());
-            for (int s = 0; s <= 20; s++) {
-                double x = x0 + (x1 - x0) * s / 20;
+            double x0 = pts.getMinX() - 0.06 * (pts.getMaxX() - pts.getMinX());
+            double x1 = pts.getMaxX() + 0.18 * (pts.getMaxX() - pts.getMinX());
+            for (int s = 0; s <= 60; s++) {
+                double x = x0 + (x1 - x0) * s / 60;
                 line.add(x, Math.log(a * r / e) - e / (r * (1000 / x)));
             }
             p.add(line, 1, 1, 5, 2.6f, false);
             eNote = "line from the fitted Ea and A in fit.json";
         }
+        double span = pts.getMaxX() - pts.getMinX();
+        p.xRange(pts.getMinX() - 0.06 * span, pts.getMaxX() + 0.18 * span);
         XYPlot plot = p.build();
-        plot.getRenderer().setSeriesShape(ptsIndex, ChartStyle.shape(0));
         for (int i = 0; i < labels.size(); i++) {
             XYTextAnnotation t = new XYTextAnnotation("  " + labels.get(i), pts.getX(i).doubleValue(),
                     pts.getY(i).doubleValue());
@@ -270,7 +270,6 @@ final class FitCharts {
             t.setTextAnchor(TextAnchor.TOP_LEFT);
             plot.addAnnotation(t);
         }
-        plot.getRenderer().setSeriesStroke(ptsIndex, new BasicStroke(1f));
         JFreeChart c = ChartStyle.chart("Kissinger plot", plot, subtitle, eNote);
         return new Figure("kissinger", "Kissinger plot",
                 "ln(β/Tp²) against 1000/Tp for the peak of each run's conversion rate; the slope of the line is "

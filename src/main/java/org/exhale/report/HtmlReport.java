@@ -211,11 +211,11 @@ final class HtmlReport {
         }
         return switch (unit) {
             case "Pa", "m" -> SiScale.of(Math.abs(v), unit).format(v);
-            case "C" -> sig(v, 5) + " °C";
-            case "s" -> Math.abs(v) >= 120 ? sig(v / 60, 4) + " min" : sig(v, 4) + " s";
-            case "J/m2" -> sig(v, 4) + " J/m²";
-            case "" -> sig(v, 4);
-            default -> sig(v, 4) + " " + unit;
+            case "C" -> ReportText.plain(v, 5) + " °C";
+            case "s" -> Math.abs(v) >= 120 ? ReportText.plain(v / 60, 4) + " min" : ReportText.plain(v, 4) + " s";
+            case "J/m2" -> ReportText.plain(v, 4) + " J/m²";
+            case "" -> ReportText.plain(v, 4);
+            default -> ReportText.plain(v, 4) + " " + unit;
         };
     }
 
@@ -292,6 +292,17 @@ final class HtmlReport {
         b.append("</ul>\n");
     }
 
+    private void notes(JsonNode list, String heading) {
+        if (!list.isArray() || list.size() == 0) {
+            return;
+        }
+        b.append("<h3>").append(escape(heading)).append("</h3>\n<ul>\n");
+        for (JsonNode w : list) {
+            b.append("<li>").append(escape(w.isTextual() ? w.asText() : w.toString())).append("</li>\n");
+        }
+        b.append("</ul>\n");
+    }
+
     private void plan(JsonNode p) {
         b.append("<h2 id=\"plan\">Plan</h2>\n");
         scalars(p, Set.of());
@@ -311,11 +322,23 @@ final class HtmlReport {
         if (binding.isArray() && binding.size() > 0 && f.recipe().isEmpty()) {
             b.append("<h3>Binding limit per step</h3>\n<ol>\n");
             for (JsonNode x : binding) {
-                b.append("<li>").append(escape(x.isTextual() ? x.asText() : x.toString())).append("</li>\n");
+                b.append("<li>").append(escape(bindingText(x))).append("</li>\n");
             }
             b.append("</ol>\n");
         }
         warnings(p.path("warnings"), "Plan warnings");
+        notes(p.path("notes"), "Planner notes");
+    }
+
+    /** A step's binding limit: plain text, or the "binding" field of an object. */
+    private static String bindingText(JsonNode x) {
+        if (x == null || x.isNull()) {
+            return "";
+        }
+        if (x.isObject() && x.has("binding")) {
+            return x.path("binding").asText();
+        }
+        return x.isTextual() ? x.asText() : x.toString();
     }
 
     private void recipe(CsvTable t) {
@@ -337,8 +360,7 @@ final class HtmlReport {
                 b.append(number ? "<td class=\"num\">" : "<td>").append(escape(number ? tidy(v) : v)).append("</td>");
             }
             if (perStep) {
-                JsonNode x = binding.get(r);
-                b.append("<td>").append(escape(x.isTextual() ? x.asText() : x.isNull() ? "" : x.toString())).append("</td>");
+                b.append("<td>").append(escape(bindingText(binding.get(r)))).append("</td>");
             }
             b.append("</tr>\n");
         }
@@ -346,8 +368,11 @@ final class HtmlReport {
     }
 
     private static String tidy(String v) {
+        if (v.matches("[-+]?[0-9]+")) {
+            return v.replace('-', '−');
+        }
         try {
-            return sig(Double.parseDouble(v), 5);
+            return ReportText.plain(Double.parseDouble(v), 6);
         } catch (NumberFormatException e) {
             return v;
         }

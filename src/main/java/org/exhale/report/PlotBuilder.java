@@ -23,6 +23,19 @@ final class PlotBuilder {
 
     private final XYSeriesCollection data = new XYSeriesCollection();
     private final StyledRenderer renderer = new StyledRenderer();
+    /**
+     * Marker-only series (measured points) live in a dataset of their own: a renderer that draws
+     * each line as one path carries the path over a series without a line into the next one.
+     */
+    private final XYSeriesCollection marks = new XYSeriesCollection();
+    private final StyledRenderer markRenderer = new StyledRenderer();
+
+    {
+        // hollow markers: the model line under the measured points stays visible
+        markRenderer.setDefaultShapesFilled(false);
+        markRenderer.setUseOutlinePaint(false);
+        markRenderer.setDrawOutlines(true);
+    }
     private final ValueAxis xAxis;
     private final ValueAxis yAxis;
     private final boolean log;
@@ -59,15 +72,16 @@ final class PlotBuilder {
     /** Series longer than this are thinned for drawing, keeping each bucket's extremes (a slide is 1280 px wide). */
     static final int MAX_POINTS = 600;
 
-    /** Adds a series; returns its index, or -1 when it has no point. */
+    /** Adds a series; returns its index in its dataset (lines 0, markers 1), or -1 when it has no point. */
     int add(XYSeries s0, int colour, int dash, int shape, float width, boolean markersOnly) {
         XYSeries s = markersOnly ? s0 : thin(s0, MAX_POINTS);
         if (s.getItemCount() == 0) {
             return -1;
         }
-        int i = data.getSeriesCount();
-        data.addSeries(s);
-        renderer.series(i, colour, dash, shape, width, s.getItemCount(), markersOnly);
+        XYSeriesCollection into = markersOnly ? marks : data;
+        int i = into.getSeriesCount();
+        into.addSeries(s);
+        (markersOnly ? markRenderer : renderer).series(i, colour, dash, shape, width, s.getItemCount(), markersOnly);
         for (int k = 0; k < s.getItemCount(); k++) {
             double y = s.getY(k).doubleValue();
             if (Double.isFinite(y) && (!log || y > 0)) {
@@ -92,7 +106,7 @@ final class PlotBuilder {
     }
 
     boolean isEmpty() {
-        return data.getSeriesCount() == 0;
+        return data.getSeriesCount() == 0 && marks.getSeriesCount() == 0;
     }
 
     String offScale() {
@@ -103,6 +117,12 @@ final class PlotBuilder {
         XYPlot plot = new XYPlot(data, xAxis, yAxis, renderer);
         plot.setOrientation(PlotOrientation.VERTICAL);
         renderer.setLegendLine(new java.awt.geom.Line2D.Double(-18, 0, 18, 0));
+        if (marks.getSeriesCount() > 0) {
+            plot.setDataset(1, marks);
+            plot.setRenderer(1, markRenderer);
+            // markers under the model lines
+            plot.setDatasetRenderingOrder(org.jfree.chart.plot.DatasetRenderingOrder.REVERSE);
+        }
         double a = lo;
         double b = hi;
         java.util.List<Integer> drawn = new java.util.ArrayList<>();
@@ -185,10 +205,16 @@ final class PlotBuilder {
     /** A series from two columns of one corner's rows; scale maps the stored value to the plotted one. */
     static XYSeries series(String name, CsvTable t, String corner, String xCol, DoubleUnaryOperator xScale,
                            String yCol, DoubleUnaryOperator yScale) {
+        return series(name, t, "corner", corner, xCol, xScale, yCol, yScale);
+    }
+
+    /** A series from the rows whose {@code groupCol} is {@code group} (all rows when group is null). */
+    static XYSeries series(String name, CsvTable t, String groupCol, String group, String xCol,
+                           DoubleUnaryOperator xScale, String yCol, DoubleUnaryOperator yScale) {
         XYSeries s = new XYSeries(name, false, true);
-        boolean byCorner = corner != null && t.has("corner");
+        boolean byGroup = group != null && t.has(groupCol);
         for (int r = 0; r < t.size(); r++) {
-            if (byCorner && !t.text(r, "corner").equals(corner)) {
+            if (byGroup && !t.text(r, groupCol).equals(group)) {
                 continue;
             }
             double x = t.number(r, xCol);

@@ -14,7 +14,10 @@ record SiScale(double factor, String unit) {
             return new SiScale(1, unit);
         }
         int e = (int) Math.floor(Math.log10(largest) / 3);
-        e = Math.max(-4, Math.min(4, e));
+        if (e < -4 || e > 4) {
+            // beyond pico and tera a prefix helps nobody: the plain SI unit with an exponent
+            return new SiScale(1, unit);
+        }
         return new SiScale(Math.pow(10, -3 * e), PREFIX[e + 4] + unit);
     }
 

@@ -161,6 +161,65 @@ class ReportTest {
     }
 
     @Test
+    void eachRunIsItsOwnSeries() {
+        Figure conversion = fit.figures().get(0);
+        org.jfree.data.xy.XYDataset lines = conversion.chart().getXYPlot().getDataset(0);
+        assertEquals(4, lines.getSeriesCount());
+        for (int s = 0; s < lines.getSeriesCount(); s++) {
+            // the fixture has 100 rows per run, temperatures rising
+            assertEquals(100, lines.getItemCount(s), "series " + s);
+            for (int i = 1; i < lines.getItemCount(s); i++) {
+                assertTrue(lines.getXValue(s, i) > lines.getXValue(s, i - 1));
+            }
+        }
+    }
+
+    @Test
+    void kissingerLinePassesThroughPeaksThatObeyTheRelation() {
+        // the fixture's peak temperatures solve Kissinger's relation exactly for Ea 160 kJ/mol, A 1e12 1/s
+        // (Kissinger, Anal. Chem. 29 (1957) 1702): the drawn line must pass through every point
+        org.jfree.chart.plot.XYPlot plot = fit.figures().get(2).chart().getXYPlot();
+        org.jfree.data.xy.XYDataset line = plot.getDataset(0);
+        org.jfree.data.xy.XYDataset pts = plot.getDataset(1);
+        assertEquals(4, pts.getItemCount(0));
+        for (int i = 0; i < pts.getItemCount(0); i++) {
+            double x = pts.getXValue(0, i);
+            int k = 1;
+            while (line.getXValue(0, k) < x) {
+                k++;
+            }
+            double x0 = line.getXValue(0, k - 1);
+            double x1 = line.getXValue(0, k);
+            double y = line.getYValue(0, k - 1) + (line.getYValue(0, k) - line.getYValue(0, k - 1)) * (x - x0) / (x1 - x0);
+            // the line is straight in 1000/Tp, so interpolation is exact up to rounding
+            assertEquals(pts.getYValue(0, i), y, 1e-9, "run " + i);
+        }
+    }
+
+    @Test
+    void thinningKeepsThePeak() {
+        org.jfree.data.xy.XYSeries s = new org.jfree.data.xy.XYSeries("s", false, true);
+        for (int i = 0; i < 5000; i++) {
+            s.add(i, i == 3217 ? 10.0 : Math.sin(i / 100.0));
+        }
+        org.jfree.data.xy.XYSeries t = PlotBuilder.thin(s, 600);
+        assertTrue(t.getItemCount() <= 600, "" + t.getItemCount());
+        assertEquals(10.0, t.getMaxY());
+        assertEquals(0.0, t.getMinX());
+        assertEquals(4999.0, t.getMaxX());
+    }
+
+    @Test
+    void decadeLabels() {
+        DecadeFormat f = new DecadeFormat();
+        assertEquals("10⁻⁶", f.format(1e-6));
+        assertEquals("0.01", f.format(0.01));
+        assertEquals("1", f.format(1));
+        assertEquals("1000", f.format(1000));
+        assertEquals("10¹²", f.format(1e12));
+    }
+
+    @Test
     void inlineChartsHaveDistinctClipIds() {
         String html = bake.html();
         Matcher m = Pattern.compile("<clipPath id=['\"]([^'\"]+)['\"]").matcher(html);
