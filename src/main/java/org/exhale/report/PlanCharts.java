@@ -48,6 +48,9 @@ final class PlanCharts {
         r.setDefaultItemLabelGenerator(new StandardCategoryItemLabelGenerator("{2} min",
                 new java.text.DecimalFormat("0.0")));
         r.setDefaultItemLabelsVisible(true);
+        r.setDefaultPositiveItemLabelPosition(new org.jfree.chart.labels.ItemLabelPosition(
+                org.jfree.chart.labels.ItemLabelAnchor.OUTSIDE3, org.jfree.chart.ui.TextAnchor.CENTER_LEFT));
+        r.setItemLabelAnchorOffset(8);
         r.setDefaultItemLabelFont(ChartStyle.LABEL);
         r.setDefaultItemLabelPaint(ChartStyle.INK);
         CategoryAxis x = new CategoryAxis("");
@@ -55,6 +58,7 @@ final class PlanCharts {
         y.setUpperMargin(0.15);
         CategoryPlot plot = new CategoryPlot(d, x, y, r);
         plot.setOrientation(PlotOrientation.HORIZONTAL);
+        plot.setRangeAxisLocation(org.jfree.chart.axis.AxisLocation.BOTTOM_OR_LEFT);
         plot.setRangeGridlinePaint(ChartStyle.GRID);
         ChartStyle.axis(x);
         ChartStyle.axis(y);
