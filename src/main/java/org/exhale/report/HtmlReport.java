@@ -1,0 +1,521 @@
+package org.exhale.report;
+
+import static org.exhale.report.ReportText.escape;
+import static org.exhale.report.ReportText.sig;
+
+import java.util.ArrayList;
+import java.util.Iterator;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+
+import com.fasterxml.jackson.databind.JsonNode;
+
+/**
+ * The report page: one self-contained HTML file, charts inline as SVG, no script, no external
+ * font, style sheet or address. Every text taken from the folder's files is escaped.
+ */
+final class HtmlReport {
+    private static final String CSS = """
+            :root{--ink:#22262b;--muted:#5b636b;--rule:#d5d9de;--band:#f3f5f7;--ok:#2f7a4b;--bad:#8f1a1a;--accent:#1d4f7c}
+            *{box-sizing:border-box}
+            body{margin:0;font-family:system-ui,"DejaVu Sans",Helvetica,Arial,sans-serif;color:var(--ink);background:#fff;line-height:1.45}
+            main{max-width:1180px;margin:0 auto;padding:28px 28px 60px}
+            h1{font-size:1.7rem;margin:0 0 4px}
+            h2{font-size:1.25rem;margin:34px 0 10px;padding-bottom:4px;border-bottom:2px solid var(--accent)}
+            h3{font-size:1.05rem;margin:22px 0 8px}
+            .sub{color:var(--muted);margin:0 0 18px}
+            .verdict{display:inline-block;padding:6px 12px;border:2px solid;font-weight:600;margin:6px 0 4px}
+            .verdict.ok{color:var(--ok)} .verdict.bad{color:var(--bad)}
+            table{border-collapse:collapse;margin:6px 0 12px;font-size:.92rem}
+            th,td{border-bottom:1px solid var(--rule);padding:5px 10px;text-align:left;vertical-align:top}
+            th{background:var(--band);font-weight:600}
+            td.num{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}
+            tr.binding td{font-weight:600;background:#fbf6e9}
+            .bad{color:var(--bad);font-weight:600} .ok{color:var(--ok)}
+            ul.warn li{margin:4px 0} ul.warn li::marker{content:"⚠ "}
+            .cautions{border-left:4px solid var(--muted);background:var(--band);padding:8px 14px;margin:10px 0}
+            .cautions p{margin:4px 0}
+            figure{margin:18px 0 26px;border:1px solid var(--rule);padding:10px}
+            figure svg{display:block;width:100%;height:auto}
+            figcaption{color:var(--muted);font-size:.92rem;margin-top:6px}
+            figcaption a{color:var(--accent)}
+            pre{background:var(--band);padding:10px;overflow:auto;font-size:.85rem}
+            nav a{color:var(--accent);margin-right:14px}
+            footer{color:var(--muted);font-size:.85rem;margin-top:40px}
+            @media print{figure{break-inside:avoid}}
+            """;
+
+    private final RunFolder f;
+    private final StringBuilder b = new StringBuilder(1 << 16);
+
+    private HtmlReport(RunFolder f) {
+        this.f = f;
+    }
+
+    /**
+     * @param figures    the charts, in page order
+     * @param svg        each chart's SVG element, by figure id
+     * @param chartsHref where the chart files lie, relative to the page ("charts/"), or null to give no links
+     * @param binding    the binding limit to mark in the margins table, or null
+     */
+    static String render(RunFolder f, List<Figure> figures, Map<String, String> svg, String chartsHref, String binding) {
+        return new HtmlReport(f).page(figures, svg, chartsHref, binding);
+    }
+
+    private String page(List<Figure> figures, Map<String, String> svg, String chartsHref, String binding) {
+        String name = f.caseName();
+        b.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+                .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
+                .append("<title>").append(escape(name)).append(" — exhale report</title>\n<style>\n").append(CSS)
+                .append("</style>\n</head>\n<body>\n<main>\n");
+        b.append("<h1>").append(escape(name)).append("</h1>\n");
+        b.append("<p class=\"sub\">exhale report of the folder <code>").append(escape(folderName()))
+                .append("</code>: ").append(escape(kind())).append("</p>\n");
+        f.summary().ifPresent(s -> summary(s, binding));
+        f.plan().ifPresent(this::plan);
+        f.recipe().ifPresent(this::recipe);
+        f.fit().ifPresent(this::fit);
+        cautions();
+        if (!figures.isEmpty()) {
+            b.append("<h2 id=\"charts\">Charts</h2>\n");
+            for (Figure fig : figures) {
+                b.append("<figure id=\"fig-").append(fig.id()).append("\">\n").append(svg.get(fig.id())).append('\n')
+                        .append("<figcaption><strong>").append(escape(fig.title())).append(".</strong> ")
+                        .append(escape(fig.caption()));
+                if (chartsHref != null) {
+                    b.append(" Files: <a href=\"").append(escape(chartsHref + fig.id())).append(".svg\">SVG</a>, <a href=\"")
+                            .append(escape(chartsHref + fig.id())).append(".png\">PNG</a>.");
+                }
+                b.append("</figcaption>\n</figure>\n");
+            }
+        }
+        b.append("<footer>Written by <code>exhale report</code> from the files in this folder; ")
+                .append("the charts are also in <code>charts/</code> as SVG and PNG.</footer>\n");
+        b.append("</main>\n</body>\n</html>\n");
+        return b.toString();
+    }
+
+    private String folderName() {
+        java.nio.file.Path p = f.dir().toAbsolutePath().normalize().getFileName();
+        return p == null ? f.dir().toString() : p.toString();
+    }
+
+    private String kind() {
+        List<String> k = new ArrayList<>();
+        if (f.plan().isPresent() || f.recipe().isPresent()) {
+            k.add("planned recipe");
+        } else if (f.summary().isPresent()) {
+            k.add("simulated bake");
+        }
+        if (f.fit().isPresent()) {
+            k.add("kinetics fitted from thermogravimetric runs");
+        }
+        return String.join(", ", k);
+    }
+
+    // ---------------------------------------------------------------- simulate / plan
+
+    private void summary(JsonNode s, String binding) {
+        JsonNode met = s.path("all_limits_met");
+        if (met.isBoolean()) {
+            b.append(met.asBoolean() ? "<p class=\"verdict ok\">✓ All limits met</p>\n"
+                    : "<p class=\"verdict bad\">✗ A limit is violated</p>\n");
+        }
+        b.append("<h2 id=\"headline\">Headline figures</h2>\n");
+        scalars(s, Set.of("case", "all_limits_met"));
+        warnings(s.path("warnings"), "Warnings");
+        if (s.path("margins").isObject() && s.path("margins").size() > 0) {
+            b.append("<h2 id=\"margins\">Margins to the limits</h2>\n");
+            b.append("<p>Ratio margins are allowed / worst actual (1 or more holds); the ceiling's is the headroom "
+                    + "in kelvin (0 or more holds).")
+                    .append(binding != null ? " The binding limit is marked." : "").append("</p>\n");
+            margins(s.path("margins"), binding);
+        }
+        if (s.path("corners").isArray() && s.path("corners").size() > 0) {
+            b.append("<h3>Corners</h3>\n");
+            objectTable(s.path("corners"));
+        }
+    }
+
+    /** A table of the object's plain values (numbers, text, booleans); nested values are left to their own tables. */
+    private void scalars(JsonNode o, Set<String> skip) {
+        b.append("<table>\n");
+        for (Iterator<Map.Entry<String, JsonNode>> it = o.fields(); it.hasNext(); ) {
+            Map.Entry<String, JsonNode> e = it.next();
+            JsonNode v = e.getValue();
+            if (skip.contains(e.getKey()) || v.isContainerNode()) {
+                continue;
+            }
+            b.append("<tr><th>").append(escape(label(e.getKey()))).append("</th><td class=\"num\">")
+                    .append(escape(value(e.getKey(), v))).append("</td></tr>\n");
+        }
+        b.append("</table>\n");
+    }
+
+    static String label(String key) {
+        String k = key.replaceFirst("_(s|Pa|C|K|m|J_m2|kJ_mol|K_min|1_s|mol_m2|mol_m2_s)$", "");
+        k = k.replace("1pct", "1 %").replace('_', ' ');
+        return k.isEmpty() ? key : Character.toUpperCase(k.charAt(0)) + k.substring(1);
+    }
+
+    /** A value with the unit its key ends in. */
+    static String value(String key, JsonNode v) {
+        if (v == null || v.isNull() || v.isMissingNode()) {
+            return key.startsWith("time_to") ? "not reached" : "n/a";
+        }
+        if (v.isBoolean()) {
+            return v.asBoolean() ? "yes" : "no";
+        }
+        if (!v.isNumber()) {
+            return v.asText();
+        }
+        double d = v.asDouble();
+        if (key.endsWith("_s")) {
+            return Math.abs(d) >= 120 ? sig(d / 60, 4) + " min" : sig(d, 4) + " s";
+        }
+        if (key.endsWith("_Pa")) {
+            return SiScale.of(Math.abs(d), "Pa").format(d);
+        }
+        if (key.endsWith("_m")) {
+            return SiScale.of(Math.abs(d), "m").format(d);
+        }
+        if (key.endsWith("_C")) {
+            return sig(d, 5) + " °C";
+        }
+        if (key.endsWith("_K")) {
+            return sig(d, 4) + " K";
+        }
+        if (key.endsWith("_J_m2")) {
+            return sig(d, 4) + " J/m²";
+        }
+        if (key.endsWith("_kJ_mol")) {
+            return sig(d, 5) + " kJ/mol";
+        }
+        if (key.endsWith("_K_min")) {
+            return sig(d, 4) + " K/min";
+        }
+        if (key.endsWith("_1_s")) {
+            return sig(d, 4) + " 1/s";
+        }
+        if (v.isIntegralNumber()) {
+            return v.asText();
+        }
+        return sig(d, 4);
+    }
+
+    private static String withUnit(double v, String unit) {
+        if (!Double.isFinite(v)) {
+            return sig(v, 4);
+        }
+        return switch (unit) {
+            case "Pa", "m" -> SiScale.of(Math.abs(v), unit).format(v);
+            case "C" -> ReportText.plain(v, 5) + " °C";
+            case "s" -> Math.abs(v) >= 120 ? ReportText.plain(v / 60, 4) + " min" : ReportText.plain(v, 4) + " s";
+            case "J/m2" -> ReportText.plain(v, 4) + " J/m²";
+            case "" -> ReportText.plain(v, 4);
+            default -> ReportText.plain(v, 4) + " " + unit;
+        };
+    }
+
+    private void margins(JsonNode m, String binding) {
+        b.append("<table>\n<tr><th>Limit</th><th>Status</th><th>Allowed</th><th>Worst actual</th><th>Margin</th>"
+                + "<th>When</th><th>Corner</th><th>Dominant term</th></tr>\n");
+        for (Iterator<Map.Entry<String, JsonNode>> it = m.fields(); it.hasNext(); ) {
+            Map.Entry<String, JsonNode> e = it.next();
+            JsonNode g = e.getValue();
+            String unit = g.path("unit").asText("");
+            boolean holds = g.path("holds").asBoolean(true);
+            boolean isBinding = e.getKey().equals(binding);
+            String margin;
+            if (g.has("headroom_K")) {
+                margin = g.path("headroom_K").isNumber() ? sig(g.path("headroom_K").asDouble(), 3) + " K headroom" : "n/a";
+            } else {
+                JsonNode mv = g.path("margin");
+                margin = mv.isNumber() ? "×" + sig(mv.asDouble(), 4) : "never loaded";
+            }
+            b.append(isBinding ? "<tr class=\"binding\">" : "<tr>")
+                    .append("<td>").append(escape(e.getKey())).append(isBinding ? " (binding)" : "").append("</td>")
+                    .append("<td class=\"").append(holds ? "ok\">holds" : "bad\">VIOLATED").append("</td>")
+                    .append("<td class=\"num\">").append(escape(num(g.path("allowed"), unit))).append("</td>")
+                    .append("<td class=\"num\">").append(escape(num(g.path("actual"), unit))).append("</td>")
+                    .append("<td class=\"num\">").append(escape(margin)).append("</td>")
+                    .append("<td class=\"num\">").append(escape(value("time_s", g.path("time_s")))).append("</td>")
+                    .append("<td>").append(escape(g.path("corner").asText(""))).append("</td>")
+                    .append("<td>").append(escape(g.path("dominant").asText(""))).append("</td></tr>\n");
+        }
+        b.append("</table>\n");
+    }
+
+    private static String num(JsonNode v, String unit) {
+        return v.isNumber() ? withUnit(v.asDouble(), unit) : "n/a";
+    }
+
+    /** A table of an array of objects, one column per plain key found in any of them. */
+    private void objectTable(JsonNode arr) {
+        Set<String> keys = new LinkedHashSet<>();
+        for (JsonNode o : arr) {
+            for (Iterator<Map.Entry<String, JsonNode>> it = o.fields(); it.hasNext(); ) {
+                Map.Entry<String, JsonNode> e = it.next();
+                if (!e.getValue().isContainerNode()) {
+                    keys.add(e.getKey());
+                }
+            }
+        }
+        b.append("<table>\n<tr>");
+        for (String k : keys) {
+            b.append("<th>").append(escape(label(k))).append("</th>");
+        }
+        b.append("</tr>\n");
+        for (JsonNode o : arr) {
+            b.append("<tr>");
+            for (String k : keys) {
+                JsonNode v = o.get(k);
+                boolean number = v != null && v.isNumber();
+                b.append(number ? "<td class=\"num\">" : "<td>")
+                        .append(escape(v == null ? "" : value(k, v))).append("</td>");
+            }
+            b.append("</tr>\n");
+        }
+        b.append("</table>\n");
+    }
+
+    private void warnings(JsonNode list, String heading) {
+        if (!list.isArray() || list.size() == 0) {
+            return;
+        }
+        b.append("<h3>").append(escape(heading)).append("</h3>\n<ul class=\"warn\">\n");
+        for (JsonNode w : list) {
+            b.append("<li>").append(escape(w.isTextual() ? w.asText() : w.toString())).append("</li>\n");
+        }
+        b.append("</ul>\n");
+    }
+
+    private void notes(JsonNode list, String heading) {
+        if (!list.isArray() || list.size() == 0) {
+            return;
+        }
+        b.append("<h3>").append(escape(heading)).append("</h3>\n<ul>\n");
+        for (JsonNode w : list) {
+            b.append("<li>").append(escape(w.isTextual() ? w.asText() : w.toString())).append("</li>\n");
+        }
+        b.append("</ul>\n");
+    }
+
+    private void plan(JsonNode p) {
+        b.append("<h2 id=\"plan\">Plan</h2>\n");
+        scalars(p, Set.of());
+        if (p.path("duration_s").isNumber() && p.path("lower_bound_s").isNumber()) {
+            double d = p.path("duration_s").asDouble();
+            double lb = p.path("lower_bound_s").asDouble();
+            b.append("<p>The plan takes ").append(escape(value("duration_s", p.path("duration_s"))))
+                    .append("; no recipe within the limits can be shorter than ")
+                    .append(escape(value("lower_bound_s", p.path("lower_bound_s")))).append(" (")
+                    .append(escape(lb > 0 ? "plan / bound = " + sig(d / lb, 3) : "")).append(").</p>\n");
+        }
+        if (p.path("margins").isObject() && f.summary().map(s -> !s.has("margins")).orElse(true)) {
+            b.append("<h3>Margins of the plan</h3>\n");
+            margins(p.path("margins"), null);
+        }
+        JsonNode binding = p.path("binding");
+        if (binding.isArray() && binding.size() > 0 && f.recipe().isEmpty()) {
+            b.append("<h3>Binding limit per step</h3>\n<ol>\n");
+            for (JsonNode x : binding) {
+                b.append("<li>").append(escape(bindingText(x))).append("</li>\n");
+            }
+            b.append("</ol>\n");
+        }
+        warnings(p.path("warnings"), "Plan warnings");
+        notes(p.path("notes"), "Planner notes");
+    }
+
+    /** A step's binding limit: plain text, or the "binding" field of an object. */
+    private static String bindingText(JsonNode x) {
+        if (x == null || x.isNull()) {
+            return "";
+        }
+        if (x.isObject() && x.has("binding")) {
+            return x.path("binding").asText();
+        }
+        return x.isTextual() ? x.asText() : x.toString();
+    }
+
+    private void recipe(CsvTable t) {
+        b.append("<h2 id=\"recipe\">Ramp table</h2>\n<table>\n<tr>");
+        for (String h : t.header()) {
+            b.append("<th>").append(escape(recipeHeader(h))).append("</th>");
+        }
+        JsonNode binding = f.plan().map(p -> p.path("binding")).orElse(null);
+        boolean perStep = binding != null && binding.isArray() && binding.size() == t.size();
+        if (perStep) {
+            b.append("<th>Binding limit</th>");
+        }
+        b.append("</tr>\n");
+        for (int r = 0; r < t.size(); r++) {
+            b.append("<tr>");
+            for (String h : t.header()) {
+                String v = t.text(r, h);
+                boolean number = v.matches("[-+0-9.eE]+");
+                b.append(number ? "<td class=\"num\">" : "<td>").append(escape(number ? tidy(v) : v)).append("</td>");
+            }
+            if (perStep) {
+                b.append("<td>").append(escape(bindingText(binding.get(r)))).append("</td>");
+            }
+            b.append("</tr>\n");
+        }
+        b.append("</table>\n");
+    }
+
+    private static String tidy(String v) {
+        if (v.matches("[-+]?[0-9]+")) {
+            return v.replace('-', '−');
+        }
+        try {
+            return ReportText.plain(Double.parseDouble(v), 6);
+        } catch (NumberFormatException e) {
+            return v;
+        }
+    }
+
+    private static String recipeHeader(String h) {
+        return switch (h) {
+            case "start_C" -> "Start [°C]";
+            case "end_C" -> "End [°C]";
+            case "rate_C_per_min" -> "Rate [°C/min]";
+            case "duration_s" -> "Duration [s]";
+            case "elapsed_s" -> "Elapsed [s]";
+            default -> label(h);
+        };
+    }
+
+    // ---------------------------------------------------------------- fit
+
+    private void fit(JsonNode j) {
+        b.append("<h2 id=\"fit\">Kinetics fit</h2>\n");
+        JsonNode fits = j.path("model_fits");
+        int chosen = j.path("chosen_components").asInt(-1);
+        JsonNode k = j.path("kissinger");
+        b.append("<table>\n");
+        row("Runs", String.valueOf(j.path("runs").size()));
+        if (chosen > 0) {
+            row("Components chosen", chosen + (j.has("criterion") ? " (" + j.path("criterion").asText() + ")" : ""));
+        }
+        if (k.path("Ea_kJ_mol").isNumber()) {
+            row("Kissinger Ea", sig(k.path("Ea_kJ_mol").asDouble(), 5)
+                    + (k.path("Ea_ci_kJ_mol").isNumber() ? " ± " + sig(k.path("Ea_ci_kJ_mol").asDouble(), 3) : "")
+                    + " kJ/mol" + (k.path("confidence").isNumber() ? " (" + sig(k.path("confidence").asDouble() * 100, 3)
+                    + " % interval)" : ""));
+        }
+        if (k.path("A_1_s").isNumber()) {
+            row("Kissinger A", sig(k.path("A_1_s").asDouble(), 4) + " 1/s");
+        }
+        b.append("</table>\n");
+        warnings(j.path("warnings"), "Warnings");
+        JsonNode failures = j.path("failures");
+        if (failures.isObject() && failures.size() > 0) {
+            b.append("<h3>Fits that failed</h3>\n<ul class=\"warn\">\n");
+            for (Iterator<Map.Entry<String, JsonNode>> it = failures.fields(); it.hasNext(); ) {
+                Map.Entry<String, JsonNode> e = it.next();
+                b.append("<li>").append(escape(e.getKey())).append(": ")
+                        .append(escape(e.getValue().isTextual() ? e.getValue().asText() : e.getValue().toString()))
+                        .append("</li>\n");
+            }
+            b.append("</ul>\n");
+        }
+        if (j.path("runs").isArray() && j.path("runs").size() > 0) {
+            b.append("<h3>Runs</h3>\n");
+            objectTable(j.path("runs"));
+        }
+        if (fits.isArray() && fits.size() > 0) {
+            b.append("<h3>Model fits compared</h3>\n<table>\n<tr><th>Components</th><th>Model</th><th>rms of α</th>"
+                    + "<th>AIC</th><th>BIC</th><th></th></tr>\n");
+            for (JsonNode m : fits) {
+                boolean isChosen = m.path("components").asInt() == chosen;
+                b.append(isChosen ? "<tr class=\"binding\">" : "<tr>")
+                        .append("<td class=\"num\">").append(escape(m.path("components").asText())).append("</td>")
+                        .append("<td>").append(escape(m.path("model").asText())).append("</td>")
+                        .append("<td class=\"num\">").append(escape(numText(m.path("rms_alpha"), 3))).append("</td>")
+                        .append("<td class=\"num\">").append(escape(numText(m.path("aic"), 6))).append("</td>")
+                        .append("<td class=\"num\">").append(escape(numText(m.path("bic"), 6))).append("</td>")
+                        .append("<td>").append(isChosen ? "chosen" : "").append("</td></tr>\n");
+            }
+            b.append("</table>\n");
+            for (JsonNode m : fits) {
+                if (m.path("components").asInt() == chosen) {
+                    parts(m.path("parts"), m.path("confidence"));
+                }
+            }
+        }
+        JsonNode notes = j.path("notes");
+        if (notes.isArray() && notes.size() > 0) {
+            b.append("<details><summary>How the files were read (").append(notes.size()).append(" notes)</summary>\n<ul>\n");
+            for (JsonNode n : notes) {
+                b.append("<li>").append(escape(n.asText())).append("</li>\n");
+            }
+            b.append("</ul>\n</details>\n");
+        }
+        f.kinetics().ifPresent(y -> b.append("<details><summary>kinetics.yaml</summary>\n<pre>").append(escape(y))
+                .append("</pre>\n</details>\n"));
+    }
+
+    private void parts(JsonNode parts, JsonNode confidence) {
+        if (!parts.isArray() || parts.size() == 0) {
+            return;
+        }
+        String ci = confidence.isNumber() ? " (± " + sig(confidence.asDouble() * 100, 3) + " % interval)" : "";
+        b.append("<h3>Fitted components").append(escape(ci)).append("</h3>\n<table>\n<tr><th>Name</th><th>Model</th>"
+                + "<th>Fraction</th><th>Ea [kJ/mol]</th><th>A [1/s]</th><th>Shape</th></tr>\n");
+        for (JsonNode p : parts) {
+            StringBuilder shape = new StringBuilder();
+            for (int i = 0; i < p.path("shape").size(); i++) {
+                shape.append(i > 0 ? ", " : "").append(sig(p.path("shape").get(i).asDouble(), 4));
+                JsonNode sc = p.path("shape_ci").path(i);
+                if (sc.isNumber()) {
+                    shape.append(" ± ").append(sig(sc.asDouble(), 2));
+                }
+            }
+            b.append("<tr><td>").append(escape(p.path("name").asText())).append("</td><td>")
+                    .append(escape(p.path("model").asText())).append("</td><td class=\"num\">")
+                    .append(escape(pm(p.path("fraction"), p.path("fraction_ci"), 4))).append("</td><td class=\"num\">")
+                    .append(escape(pm(p.path("Ea_kJ_mol"), p.path("Ea_ci_kJ_mol"), 5))).append("</td><td class=\"num\">")
+                    .append(escape(numText(p.path("A_1_s"), 4)))
+                    .append(p.path("lnA_ci").isNumber() ? escape(" (ln A ± " + sig(p.path("lnA_ci").asDouble(), 2) + ")") : "")
+                    .append("</td><td class=\"num\">").append(escape(shape.toString())).append("</td></tr>\n");
+        }
+        b.append("</table>\n");
+    }
+
+    private static String pm(JsonNode v, JsonNode ci, int digits) {
+        return numText(v, digits) + (ci.isNumber() ? " ± " + sig(ci.asDouble(), 2) : "");
+    }
+
+    private static String numText(JsonNode v, int digits) {
+        return v.isNumber() ? sig(v.asDouble(), digits) : "n/a";
+    }
+
+    private void row(String k, String v) {
+        b.append("<tr><th>").append(escape(k)).append("</th><td>").append(escape(v)).append("</td></tr>\n");
+    }
+
+    private void cautions() {
+        List<String> list = new ArrayList<>();
+        for (JsonNode src : new JsonNode[]{f.summary().orElse(null), f.plan().orElse(null), f.fit().orElse(null)}) {
+            if (src != null) {
+                for (JsonNode c : src.path("cautions")) {
+                    if (!list.contains(c.asText())) {
+                        list.add(c.asText());
+                    }
+                }
+            }
+        }
+        if (list.isEmpty()) {
+            list.addAll(Cautions.BAKE);
+        }
+        b.append("<h2 id=\"cautions\">Cautions</h2>\n<div class=\"cautions\">\n");
+        for (String c : list) {
+            b.append("<p>").append(escape(c)).append("</p>\n");
+        }
+        b.append("</div>\n");
+    }
+}

@@ -1,0 +1,72 @@
+package org.exhale.report;
+
+import java.util.Optional;
+
+import org.jfree.chart.JFreeChart;
+import org.jfree.chart.axis.CategoryAxis;
+import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.labels.StandardCategoryItemLabelGenerator;
+import org.jfree.chart.plot.CategoryPlot;
+import org.jfree.chart.plot.PlotOrientation;
+import org.jfree.chart.renderer.category.BarRenderer;
+import org.jfree.chart.renderer.category.StandardBarPainter;
+import org.jfree.data.category.DefaultCategoryDataset;
+
+import com.fasterxml.jackson.databind.JsonNode;
+
+/** Charts of a planned recipe from plan.json. */
+final class PlanCharts {
+    private PlanCharts() {
+    }
+
+    /** The plan's duration beside the lower bound no recipe within the limits can beat. */
+    static Optional<Figure> lowerBound(RunFolder f) {
+        if (f.plan().isEmpty()) {
+            return Optional.empty();
+        }
+        JsonNode p = f.plan().get();
+        if (!p.path("duration_s").isNumber() || !p.path("lower_bound_s").isNumber()) {
+            return Optional.empty();
+        }
+        double plan = p.path("duration_s").asDouble() / 60;
+        double bound = p.path("lower_bound_s").asDouble() / 60;
+        DefaultCategoryDataset d = new DefaultCategoryDataset();
+        d.addValue(bound, "duration", "lower bound");
+        d.addValue(plan, "duration", "plan");
+        BarRenderer r = new BarRenderer() {
+            private static final long serialVersionUID = 1L;
+
+            @Override
+            public java.awt.Paint getItemPaint(int row, int column) {
+                // the bound light, the plan dark: told apart in greyscale as well as by the axis label
+                return column == 0 ? ChartStyle.colour(7) : ChartStyle.colour(0);
+            }
+        };
+        r.setBarPainter(new StandardBarPainter());
+        r.setShadowVisible(false);
+        r.setMaximumBarWidth(0.3);
+        r.setDefaultItemLabelGenerator(new StandardCategoryItemLabelGenerator("{2} min",
+                new java.text.DecimalFormat("0.0")));
+        r.setDefaultItemLabelsVisible(true);
+        r.setDefaultPositiveItemLabelPosition(new org.jfree.chart.labels.ItemLabelPosition(
+                org.jfree.chart.labels.ItemLabelAnchor.OUTSIDE3, org.jfree.chart.ui.TextAnchor.CENTER_LEFT));
+        r.setItemLabelAnchorOffset(8);
+        r.setDefaultItemLabelFont(ChartStyle.LABEL);
+        r.setDefaultItemLabelPaint(ChartStyle.INK);
+        CategoryAxis x = new CategoryAxis("");
+        NumberAxis y = new NumberAxis("Duration [min]");
+        y.setUpperMargin(0.15);
+        CategoryPlot plot = new CategoryPlot(d, x, y, r);
+        plot.setOrientation(PlotOrientation.HORIZONTAL);
+        plot.setRangeAxisLocation(org.jfree.chart.axis.AxisLocation.BOTTOM_OR_LEFT);
+        plot.setRangeGridlinePaint(ChartStyle.GRID);
+        ChartStyle.axis(x);
+        ChartStyle.axis(y);
+        String ratio = bound > 0 ? "plan / bound = " + ReportText.sig(plan / bound, 3) : null;
+        JFreeChart c = ChartStyle.chart("Plan against the lower bound", plot, ReportText.label(f.caseName()), ratio);
+        c.removeLegend();
+        return Optional.of(new Figure("lower-bound", "Plan against the lower bound",
+                "Duration of the planned recipe beside the shortest time any recipe within the limits could take.",
+                c));
+    }
+}

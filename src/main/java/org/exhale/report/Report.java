@@ -1,0 +1,95 @@
+package org.exhale.report;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+import org.exhale.io.AtomicFiles;
+import org.exhale.io.OutputFolder;
+
+/**
+ * The report of one output folder: the page and every chart as SVG and PNG.
+ *
+ * <pre>{@code
+ * Report r = Report.of(RunFolder.read(dir), "charts/");
+ * r.write(dir, dir.resolve("report.html"));
+ * }</pre>
+ *
+ * @param html    the self-contained page
+ * @param figures the charts, in page order
+ * @param svg     each chart as a standalone SVG document, by figure id
+ * @param png     each chart as PNG, by figure id
+ */
+public record Report(String html, List<Figure> figures, Map<String, String> svg, Map<String, byte[]> png) {
+    /** Folder of the chart files, inside the output folder. */
+    public static final String CHARTS = "charts";
+
+    /** Builds the charts the folder's files allow, renders them and the page. */
+    public static Report of(RunFolder folder, String chartsHref) {
+        List<Figure> figures = figures(folder);
+        Map<String, String> inline = new LinkedHashMap<>();
+        Map<String, String> svg = new LinkedHashMap<>();
+        Map<String, byte[]> png = new LinkedHashMap<>();
+        // charts are independent: render them side by side (each chart is drawn by one thread only)
+        List<Object[]> done = figures.parallelStream().map(f -> {
+            String s = ChartRenderer.svg(f.chart(), ChartStyle.WIDTH, ChartStyle.HEIGHT, f.id() + "-", true);
+            byte[] p = ChartRenderer.png(f.chart(), ChartStyle.WIDTH, ChartStyle.HEIGHT);
+            return new Object[]{f.id(), s, p};
+        }).toList();
+        for (Object[] d : done) {
+            inline.put((String) d[0], (String) d[1]);
+            svg.put((String) d[0], "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + d[1] + "\n");
+            png.put((String) d[0], (byte[]) d[2]);
+        }
+        String binding = folder.summary().map(s -> BakeCharts.binding(s.path("margins"))).orElse(null);
+        String html = HtmlReport.render(folder, figures, inline, chartsHref, binding);
+        return new Report(html, figures, svg, png);
+    }
+
+    static List<Figure> figures(RunFolder folder) {
+        List<Figure> out = new ArrayList<>();
+        folder.history().ifPresent(h -> out.addAll(new BakeCharts(h,
+                folder.summary().map(s -> s.path("margins")).orElse(null), folder.caseName()).all()));
+        PlanCharts.lowerBound(folder).ifPresent(out::add);
+        if (folder.fit().isPresent() || folder.fitTable().isPresent() || folder.isoconversional().isPresent()) {
+            out.addAll(new FitCharts(folder).all());
+        }
+        return out;
+    }
+
+    /**
+     * Writes the chart files into {@code dir/charts/} and the page to {@code page}; each file through a
+     * temporary file and a move, so no reader sees half a file. Returns the files written.
+     */
+    public List<Path> write(Path dir, Path page) {
+        OutputFolder out = new OutputFolder(dir, true);
+        List<Path> written = new ArrayList<>();
+        for (Figure f : figures) {
+            out.put(CHARTS + "/" + f.id() + ".svg", svg.get(f.id()));
+            out.put(CHARTS + "/" + f.id() + ".png", png.get(f.id()));
+            written.add(dir.resolve(CHARTS).resolve(f.id() + ".svg"));
+            written.add(dir.resolve(CHARTS).resolve(f.id() + ".png"));
+        }
+        Path inside = dir.toAbsolutePath().normalize().relativize(page.toAbsolutePath().normalize());
+        boolean inDir = !inside.startsWith("..") && inside.getNameCount() == 1;
+        if (inDir) {
+            out.put(inside.toString(), html);
+        }
+        out.commit();
+        if (!inDir) {
+            AtomicFiles.writeString(page, html);
+        }
+        written.add(page);
+        return written;
+    }
+
+    /** Where the chart files lie as seen from the page, with a trailing slash. */
+    public static String chartsHref(Path dir, Path page) {
+        Path from = page.toAbsolutePath().normalize().getParent();
+        Path rel = from.relativize(dir.toAbsolutePath().normalize().resolve(CHARTS));
+        String s = rel.toString().replace('\\', '/');
+        return s.isEmpty() ? "" : s + "/";
+    }
+}
