@@ -16,7 +16,7 @@ import picocli.CommandLine.Option;
         header = "Run the main job on the bundled demo cases.",
         description = "Plans the shortest safe recipe for each bundled demo case of data/demo (an invented scenario: "
                 + "a porous nanometre cap over interconnect lines; a dense cap over a MEMS disc cavity) and writes "
-                + "the results to out/demo/<case>, replacing earlier demo results.")
+                + "the results and a report (report.html, charts/) to out/demo/<case>, replacing earlier demo results.")
 final class DemoCommand implements Callable<Integer> {
     static final List<String> CASES = List.of("porous-line.yaml", "dense-disc.yaml");
 
@@ -36,7 +36,7 @@ final class DemoCommand implements Callable<Integer> {
             String name = c.replace(".yaml", "");
             int code = new CommandLine(new PlanCommand()).setExecutionExceptionHandler((e, cl, pr) -> {
                 throw e;
-            }).execute(p.toString(), "-o", "out/demo/" + name, "--force");
+            }).execute(p.toString(), "-o", "out/demo/" + name, "--force", "--report");
             System.out.println();
             worst = Math.max(worst, code);
         }

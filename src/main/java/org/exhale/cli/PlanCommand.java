@@ -46,6 +46,9 @@ final class PlanCommand implements Callable<Integer> {
     @Option(names = {"-o", "--output"}, paramLabel = "DIR", description = "Output folder (default: out/<case file name>-plan).")
     Path output;
 
+    @Option(names = "--report", description = "Also write DIR/report.html and DIR/charts/ (as 'exhale report DIR').")
+    boolean report;
+
     @Mixin
     CommonOptions common;
 
@@ -76,6 +79,9 @@ final class PlanCommand implements Callable<Integer> {
             out.put("summary.json", SummaryJsonWriter.toJson(SummaryJsonWriter.summary(plan.verification(), warnings)));
         }
         out.commit();
+        if (report) {
+            ReportCommand.render(out.dir(), common.quiet);
+        }
         if (!common.quiet) {
             System.out.print(text(plan, seconds));
             warnings.forEach(w -> System.out.println("Warning: " + w));

@@ -31,15 +31,23 @@ final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        render(dir, output != null ? output : dir.resolve("report.html"), common.quiet);
+        return Main.OK;
+    }
+
+    /** Renders the report of an output folder into DIR/report.html and DIR/charts/. */
+    static void render(Path dir, boolean quiet) {
+        render(dir, dir.resolve("report.html"), quiet);
+    }
+
+    private static void render(Path dir, Path page, boolean quiet) {
         long t0 = System.nanoTime();
         RunFolder folder = RunFolder.read(dir);
-        Path page = output != null ? output : dir.resolve("report.html");
         Report r = Report.of(folder, Report.chartsHref(dir, page));
         List<Path> written = r.write(dir, page);
-        if (!common.quiet) {
+        if (!quiet) {
             System.out.printf(java.util.Locale.ROOT, "wrote %s and %d chart files in %s (%.2f s)%n", page,
                     written.size() - 1, dir.resolve(Report.CHARTS), (System.nanoTime() - t0) / 1e9);
         }
-        return Main.OK;
     }
 }

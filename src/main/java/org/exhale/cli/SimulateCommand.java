@@ -41,6 +41,9 @@ final class SimulateCommand implements Callable<Integer> {
             description = "History sample interval, e.g. '10 s', '1 min' (default: ${DEFAULT-VALUE}).")
     String sample;
 
+    @Option(names = "--report", description = "Also write DIR/report.html and DIR/charts/ (as 'exhale report DIR').")
+    boolean report;
+
     @Mixin
     CommonOptions common;
 
@@ -59,6 +62,9 @@ final class SimulateCommand implements Callable<Integer> {
         out.put("history.csv", HistoryCsvWriter.write(r));
         out.put("summary.json", SummaryJsonWriter.toJson(SummaryJsonWriter.summary(r, warnings)));
         out.commit();
+        if (report) {
+            ReportCommand.render(out.dir(), common.quiet);
+        }
         if (!common.quiet) {
             System.out.print(TextSummary.of(r, warnings));
             System.out.println("Wrote " + out.dir().resolve("history.csv") + " and summary.json");

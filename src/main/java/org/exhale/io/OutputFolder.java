@@ -55,6 +55,15 @@ public final class OutputFolder {
         files.put(name, content.clone());
     }
 
+    /** Temporary files are created owner-only; results are ordinary files readable by everyone (rw-r--r--). */
+    private static void readableByAll(Path p) throws IOException {
+        try {
+            Files.setPosixFilePermissions(p, java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
+        } catch (UnsupportedOperationException e) {
+            // not a POSIX file system: keep its defaults
+        }
+    }
+
     /** Writes every file; returns the folder. */
     public Path commit() {
         checkWritable();
@@ -66,6 +75,7 @@ public final class OutputFolder {
                 Path tmp = Files.createTempFile(target.getParent(), "." + e.getKey().replace('/', '_'), ".part");
                 try {
                     Files.write(tmp, e.getValue());
+                    readableByAll(tmp);
                     try {
                         Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
                     } catch (AtomicMoveNotSupportedException ex) {
