@@ -16,7 +16,7 @@ import org.exhale.simulation.InstantLimits;
  * gas is quasi-steady; otherwise the ceiling-only bound is rigorous and is reported beside it.
  */
 public final class LowerBound {
-    /** The bound with every instantaneous limit, the ceiling-only bound, and which component sets the first. */
+    /** The bound with every instantaneous limit, the ceiling-only bound, and the component that finishes last. */
     public record Result(double boundS, double ceilingOnlyBoundS, int component) {
     }
 
@@ -28,54 +28,103 @@ public final class LowerBound {
         TemperatureCap cap = new TemperatureCap(bake.recipeStartK(), bake.limits().ceilingK() - spread,
                 tool.maxRampUpKPerS(), bake.wafer().lagS());
         int k = bake.polymer().size();
-        double best = 0;
-        double bestCeiling = 0;
-        int which = -1;
+        InstantLimits[] limits = new InstantLimits[k];
         for (int j = 0; j < k; j++) {
-            Component c = bake.polymer().component(j);
-            double target = 1 - bake.limits().residue() / c.fraction();
-            double a0 = bake.polymer().initialConversion(j);
-            if (target <= a0) {
-                continue;
-            }
             boolean[] only = new boolean[k];
             only[j] = true;
-            InstantLimits limits = new InstantLimits(bake, only);
-            double t = integrate(limits, j, a0, target, cap, -spread, bake.recipeStartK(), true);
-            double tc = integrate(limits, j, a0, target, cap, -spread, bake.recipeStartK(), false);
-            if (t > best) {
-                best = t;
-                which = j;
-            }
-            bestCeiling = Math.max(bestCeiling, tc);
+            limits[j] = new InstantLimits(bake, only);
         }
-        return new Result(best, bestCeiling, which);
+        double[] r = integrate(bake, limits, cap, -spread, true);
+        double[] c = integrate(bake, limits, cap, -spread, false);
+        return new Result(r[0], c[0], (int) r[1]);
     }
 
-    /** Time for b to go from a0 to target under db/dt = r*(b, t); +∞ if the rate vanishes. */
-    static double integrate(InstantLimits limits, int j, double a0, double target, TemperatureCap cap,
-                            double offsetK, double startK, boolean withLimits) {
-        double[] alpha = new double[limits.size()];
+    /**
+     * Integrates every component's bound b_j together and returns the first time at which
+     * Σ w_j (1 − b_j) ≤ u_target, and the component whose bound finishes last. Each b_j bounds α_j
+     * of every recipe at every instant, so u(t) ≥ Σ w_j (1 − b_j(t)) for every recipe: this is at
+     * least the largest single-component bound of MODEL.md §9 and still valid.
+     */
+    static double[] integrate(BakeCase bake, InstantLimits[] limits, TemperatureCap cap, double offsetK, boolean withLimits) {
+        int k = limits.length;
+        double[] w = new double[k];
+        double[] b = new double[k];
+        double[] r1 = new double[k];
+        double[] r2 = new double[k];
+        double[] r3 = new double[k];
+        double[] r4 = new double[k];
+        double[] tmp = new double[k];
+        double[] alpha = new double[k];
+        for (int j = 0; j < k; j++) {
+            w[j] = bake.polymer().component(j).fraction();
+            b[j] = bake.polymer().initialConversion(j);
+        }
+        double target = bake.limits().residue();
+        double startK = bake.recipeStartK();
         double t = 0;
-        double b = a0;
         double horizon = 30 * 86_400;
-        while (b < target) {
-            double r1 = rate(limits, j, alpha, b, t, cap, offsetK, startK, withLimits);
-            double dt = r1 > 0 ? Math.min(Math.max(2e-3 / r1, 0.05), 10) : 10;
-            double r2 = rate(limits, j, alpha, b + 0.5 * dt * r1, t + 0.5 * dt, cap, offsetK, startK, withLimits);
-            double r3 = rate(limits, j, alpha, b + 0.5 * dt * r2, t + 0.5 * dt, cap, offsetK, startK, withLimits);
-            double r4 = rate(limits, j, alpha, b + dt * r3, t + dt, cap, offsetK, startK, withLimits);
-            double db = dt * (r1 + 2 * r2 + 2 * r3 + r4) / 6;
-            if (b + db >= target) {
-                return t + dt * (target - b) / db;
+        double u = residue(w, b);
+        while (u > target) {
+            rates(limits, alpha, b, t, cap, offsetK, startK, withLimits, r1);
+            double fastest = 0;
+            for (int j = 0; j < k; j++) {
+                fastest = Math.max(fastest, r1[j]);
             }
-            b += db;
+            // steps of at most 2e-3 in conversion; at most 10 s while the cap still moves, longer once it is steady
+            double maxDt = t < cap.settledS() ? 10 : 1e5;
+            double dt = fastest > 0 ? Math.min(Math.max(2e-3 / fastest, 0.05), maxDt) : maxDt;
+            step(b, r1, 0.5 * dt, tmp);
+            rates(limits, alpha, tmp, t + 0.5 * dt, cap, offsetK, startK, withLimits, r2);
+            step(b, r2, 0.5 * dt, tmp);
+            rates(limits, alpha, tmp, t + 0.5 * dt, cap, offsetK, startK, withLimits, r3);
+            step(b, r3, dt, tmp);
+            rates(limits, alpha, tmp, t + dt, cap, offsetK, startK, withLimits, r4);
+            double[] next = new double[k];
+            for (int j = 0; j < k; j++) {
+                next[j] = Math.min(1, b[j] + dt * (r1[j] + 2 * r2[j] + 2 * r3[j] + r4[j]) / 6);
+            }
+            double uNext = residue(w, next);
+            if (uNext <= target) {
+                double last = 0;
+                int which = 0;
+                for (int j = 0; j < k; j++) {
+                    double need = 1 - target / w[j];
+                    if (b[j] < need && w[j] * (1 - b[j]) > last) {
+                        last = w[j] * (1 - b[j]);
+                        which = j;
+                    }
+                }
+                return new double[]{t + dt * (u - target) / (u - uNext), which};
+            }
+            b = next;
+            u = uNext;
             t += dt;
             if (t > horizon) {
-                return Double.POSITIVE_INFINITY;
+                return new double[]{Double.POSITIVE_INFINITY, -1};
             }
         }
-        return t;
+        return new double[]{t, -1};
+    }
+
+    private static double residue(double[] w, double[] b) {
+        double u = 0;
+        for (int j = 0; j < w.length; j++) {
+            u += w[j] * (1 - Math.min(b[j], 1));
+        }
+        return u;
+    }
+
+    private static void step(double[] b, double[] r, double h, double[] out) {
+        for (int j = 0; j < b.length; j++) {
+            out[j] = Math.min(1, b[j] + h * r[j]);
+        }
+    }
+
+    private static void rates(InstantLimits[] limits, double[] alpha, double[] b, double t, TemperatureCap cap,
+                              double offsetK, double startK, boolean withLimits, double[] out) {
+        for (int j = 0; j < b.length; j++) {
+            out[j] = b[j] >= 1 ? 0 : rate(limits[j], j, alpha, b[j], t, cap, offsetK, startK, withLimits);
+        }
     }
 
     private static double rate(InstantLimits limits, int j, double[] alpha, double b, double t, TemperatureCap cap,

@@ -99,6 +99,10 @@ public final class Planner {
         }
         notes.add("ceiling seed (fastest ramp to " + fmtC(capK) + ", hold): "
                 + (ceilingEval.feasible() ? "meets every limit, " + minutes(ceilingEval.durationS) : "violates " + ceilingEval.worst));
+        if (Double.isNaN(ceilingEval.timeToTargetS)) {
+            // the fastest ramp to the cap converts fastest of all recipes: nothing reaches the target in the horizon
+            return diagnose(bound, rigorous, ceilingEval);
+        }
         if (!ceilingEval.feasible()) {
             Shape rider = riderSeed();
             if (rider != null && Boolean.getBoolean("exhale.debugPlan")) {
@@ -192,7 +196,7 @@ public final class Planner {
 
     private boolean quasiSteady() {
         Recipe probe = new Recipe(startK, List.of(new Step.Ramp(capK, tool.maxRampUpKPerS()), new Step.Hold(600)));
-        BakeResult r = BakeSimulator.simulate(bake.withRecipe(probe), search);
+        BakeResult r = BakeSimulator.simulate(bake.withRecipe(probe), SimulationSettings.defaults().withSampleInterval(0));
         evaluations++;
         return r.regime() == GasRegime.QUASI_STEADY;
     }
@@ -448,7 +452,8 @@ public final class Planner {
         path.add(new double[]{0, setpoint0});
         while (t < LONG_HOLD_S) {
             double top = Math.min(tHot + tool.maxRampUpKPerS() * dt, capK + spread);
-            double feasible = highestFeasible(limits, alpha, top, startK + spread - 100);
+            // a ride that would have to fall below the start setpoint is hopeless: no recipe of this shape
+            double feasible = highestFeasible(limits, alpha, top, startK + spread - 1e-9);
             if (Double.isNaN(feasible)) {
                 return null;
             }
@@ -557,7 +562,8 @@ public final class Planner {
         double[] temps = new double[m];
         double[] durations = new double[m];
         for (int i = 0; i < m; i++) {
-            temps[i] = startK + x[i] * (capK - startK);
+            // a heating programme: each knot at least as hot as the one before (the cool-down comes last)
+            temps[i] = Math.max(startK + x[i] * (capK - startK), i > 0 ? temps[i - 1] : startK);
             durations[i] = Math.pow(10, x[m + i]);
         }
         return new Shape(durations, temps, LONG_HOLD_S);

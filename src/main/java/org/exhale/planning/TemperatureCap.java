@@ -52,4 +52,9 @@ final class TemperatureCap {
     double rampEndS() {
         return rampEndS;
     }
+
+    /** Time after which the lagged wafer is within 1e-9 of its cap (20 lag times after the ramp ends) [s]. */
+    double settledS() {
+        return rampEndS + 20 * lagS;
+    }
 }
