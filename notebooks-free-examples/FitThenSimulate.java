@@ -1,5 +1,6 @@
 // Fits kinetics to the demo thermogravimetric runs, puts the fitted components into the demo line
-// case (products taken from the case's first component) and simulates the case's recipe with them.
+// case (products taken from the case's first component), simulates the case's recipe with them and
+// plans the shortest safe recipe for the fitted polymer.
 // Run from the project folder:
 //   java -cp target/exhale.jar notebooks-free-examples/FitThenSimulate.java
 import java.nio.file.Path;
@@ -45,6 +46,11 @@ public class FitThenSimulate {
         if (!r.feasible()) {
             r.violated().forEach(m -> System.out.println("  violated: " + m.limit()));
         }
+        org.exhale.planning.PlanResult plan = Exhale.plan(bake, cf.tool());
+        System.out.println(String.format(Locale.ROOT, "planned with the fitted kinetics: %.1f min to the target "
+                + "(lower bound %.1f min), verified: %s", plan.durationS() / 60, plan.lowerBound().boundS() / 60,
+                plan.verified() ? "yes" : "no"));
+        System.out.print(org.exhale.io.RecipeCsvWriter.csv(plan.recipe()));
         Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
     }
 }

@@ -85,7 +85,8 @@ class ExamplesTest {
         String out = run("FitThenSimulate.java");
         // The demo runs' truth (DemoTgaData, seeded): 0.4 / 150 kJ/mol / 1e12 and 0.6 / 175 kJ/mol / 1.7e13 1/s.
         List<String> expected = List.of("fitted 2 component(s)", "fraction 0.400  Ea  150.0 kJ/mol  A 1.00e+12 1/s",
-                "fraction 0.600  Ea  175.0 kJ/mol  A 1.70e+13 1/s", "all limits met: yes");
+                "fraction 0.600  Ea  175.0 kJ/mol  A 1.70e+13 1/s", "all limits met: yes", "verified: yes",
+                "step,action,start_C,end_C,rate_C_per_min,duration_s,elapsed_s");
         for (String e : expected) {
             assertTrue(out.contains(e), "missing '" + e + "' in\n" + out);
         }
