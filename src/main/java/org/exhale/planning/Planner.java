@@ -153,6 +153,30 @@ public final class Planner {
                 return diagnose(bound, rigorous, bestEval);
             }
         }
+        if (best != ceiling && best.durations.length > 1) {
+            // use up the margin the search left: the whole profile after the first ramp, uniformly faster
+            double lo = 0.5;
+            double hi = 1;
+            Shape fastest = best;
+            Eval fastestEval = bestEval;
+            for (int it = 0; it < 7; it++) {
+                double f = 0.5 * (lo + hi);
+                Shape s = slowed(best, f);
+                Eval e = evaluate(s);
+                if (e.feasible() && e.durationS < fastestEval.durationS) {
+                    fastest = s;
+                    fastestEval = e;
+                    hi = f;
+                } else {
+                    lo = f;
+                }
+            }
+            if (fastest != best) {
+                notes.add("ramps after the first sped up uniformly to " + minutes(fastestEval.durationS));
+                best = fastest;
+                bestEval = fastestEval;
+            }
+        }
         // 4. round and prove
         for (int backoff = 0; backoff <= 20; backoff++) {
             Shape shifted = slowed(best, 1 + 0.04 * backoff);
