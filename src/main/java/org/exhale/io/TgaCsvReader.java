@@ -102,6 +102,10 @@ public final class TgaCsvReader {
             throw new InputException(ErrorKind.TOO_LARGE, fileName, "", 0, "content is larger than the "
                     + maxBytes / (1024 * 1024) + " MB cap");
         }
+        if (content.indexOf('\0') >= 0) {
+            throw new InputException(ErrorKind.SYNTAX, fileName, "", 0,
+                    "not a text file (contains NUL bytes); expected a CSV export of a thermogravimetric run");
+        }
         if (content.startsWith("\uFEFF")) {
             content = content.substring(1);
         }
