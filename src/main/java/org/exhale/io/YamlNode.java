@@ -29,12 +29,15 @@ public final class YamlNode {
     /** Children already handed out, so that reading a key twice is not mistaken for an alias. */
     private final Map<String, YamlNode> children = new LinkedHashMap<>();
     private List<YamlNode> itemList;
+    /** Records what is asked of every key, for the generated schema; null when not recording. */
+    private final SchemaRecorder recorder;
 
-    private YamlNode(String file, String path, Node node, Set<Node> seen) {
+    private YamlNode(String file, String path, Node node, Set<Node> seen, SchemaRecorder recorder) {
         this.file = file;
         this.path = path;
         this.node = node;
         this.seen = seen;
+        this.recorder = recorder;
         if (!seen.add(node) && !(node instanceof ScalarNode)) {
             throw error(ErrorKind.TOO_LARGE, "YAML aliases of mappings and lists are not accepted");
         }
@@ -56,7 +59,21 @@ public final class YamlNode {
     }
 
     static YamlNode root(String file, Node node) {
-        return new YamlNode(file, "", node, java.util.Collections.newSetFromMap(new IdentityHashMap<>()));
+        return root(file, node, null);
+    }
+
+    static YamlNode root(String file, Node node, SchemaRecorder recorder) {
+        YamlNode r = new YamlNode(file, "", node, java.util.Collections.newSetFromMap(new IdentityHashMap<>()), recorder);
+        if (recorder != null) {
+            recorder.type("", SchemaRecorder.Type.OBJECT);
+        }
+        return r;
+    }
+
+    private void record(SchemaRecorder.Type t) {
+        if (recorder != null) {
+            recorder.type(path, t);
+        }
     }
 
     private static String join(String path, String key) {
@@ -103,6 +120,9 @@ public final class YamlNode {
 
     public boolean has(String key) {
         allowed.add(key);
+        if (recorder != null) {
+            recorder.optional(join(path, key));
+        }
         NodeTuple t = entries.get(key);
         return t != null && !isNull(t.getValueNode());
     }
@@ -125,7 +145,10 @@ public final class YamlNode {
             }
             throw missing(key);
         }
-        return children.computeIfAbsent(key, k -> new YamlNode(file, join(path, k), t.getValueNode(), seen));
+        if (recorder != null) {
+            recorder.asked(join(path, key), true);
+        }
+        return children.computeIfAbsent(key, k -> new YamlNode(file, join(path, k), t.getValueNode(), seen, recorder));
     }
 
     /** A mapping child; must be present and be a mapping. */
@@ -134,6 +157,7 @@ public final class YamlNode {
         if (!c.isMapping()) {
             throw c.error(ErrorKind.WRONG_TYPE, "expected a mapping of keys, found " + c.describe());
         }
+        c.record(SchemaRecorder.Type.OBJECT);
         return c;
     }
 
@@ -147,11 +171,16 @@ public final class YamlNode {
         if (!(node instanceof SequenceNode s)) {
             throw error(ErrorKind.WRONG_TYPE, "expected a list, found " + describe());
         }
+        record(SchemaRecorder.Type.ARRAY);
         if (itemList == null) {
             List<YamlNode> out = new ArrayList<>();
             int i = 0;
             for (Node n : s.getValue()) {
-                out.add(new YamlNode(file, path + "[" + (++i) + "]", n, seen));
+                YamlNode item = new YamlNode(file, path + "[" + (++i) + "]", n, seen, recorder);
+                if (recorder != null && item.isMapping()) {
+                    recorder.type(item.path, SchemaRecorder.Type.OBJECT);
+                }
+                out.add(item);
             }
             itemList = List.copyOf(out);
         }
@@ -181,7 +210,23 @@ public final class YamlNode {
         if (!(node instanceof ScalarNode s)) {
             throw error(ErrorKind.WRONG_TYPE, "expected a single value, found " + describe());
         }
+        if (recorder != null && recorder.at(path).types.isEmpty()) {
+            recorder.type(path, SchemaRecorder.Type.TEXT);
+        }
         return s.getValue();
+    }
+
+    /** A name from a fixed list; the reader checks it (with a did-you-mean), the schema lists the choices. */
+    public String name(String key, List<String> choices) {
+        YamlNode c = get(key);
+        String v = c.text().trim();
+        if (recorder != null) {
+            SchemaRecorder.Entry e = recorder.at(c.path);
+            e.types.remove(SchemaRecorder.Type.TEXT);
+            e.types.add(SchemaRecorder.Type.NAME);
+            e.choices = List.copyOf(choices);
+        }
+        return v;
     }
 
     public String string(String key) {
@@ -194,6 +239,12 @@ public final class YamlNode {
 
     /** A quantity of the given kind, converted to SI. */
     public double quantity(UnitKind kind) {
+        if (recorder != null) {
+            SchemaRecorder.Entry e = recorder.at(path);
+            e.types.remove(SchemaRecorder.Type.TEXT);
+            e.types.add(SchemaRecorder.Type.QUANTITY);
+            e.kind = kind;
+        }
         try {
             return Quantities.parse(text(), kind, false);
         } catch (Quantities.BadQuantity e) {
@@ -216,6 +267,9 @@ public final class YamlNode {
         }
         YamlNode c = get(key);
         double v = c.quantity(kind);
+        if (recorder != null) {
+            recorder.at(c.path).range = range;
+        }
         if (!(v >= lo && v <= hi)) {
             throw c.error(ErrorKind.OUT_OF_RANGE, "'" + c.text() + "' is out of range, expected " + range);
         }
@@ -233,6 +287,13 @@ public final class YamlNode {
             return fallback;
         }
         YamlNode c = get(key);
+        if (recorder != null) {
+            SchemaRecorder.Entry e = recorder.at(c.path);
+            e.types.remove(SchemaRecorder.Type.TEXT);
+            e.types.add(SchemaRecorder.Type.NUMBER);
+            e.lo = lo;
+            e.hi = hi;
+        }
         double v;
         try {
             v = Quantities.parseNumber(c.text());
