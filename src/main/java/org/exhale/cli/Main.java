@@ -14,7 +14,8 @@ import picocli.CommandLine.Command;
                 + "the trapped pressure and the cap's stresses; plans the shortest recipe that meets every limit; "
                 + "fits kinetics from thermogravimetric runs.",
                 "Predictions are estimates: confirm recipes on test wafers and follow your site's safety rules."},
-        subcommands = {NewCommand.class, CheckCommand.class, SimulateCommand.class, PlanCommand.class, FitCommand.class,
+        subcommands = {NewCommand.class, CheckCommand.class, SimulateCommand.class, PlanCommand.class, CompareCommand.class,
+                FitCommand.class,
                 DemoCommand.class, CompletionCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 all limits met; 1 internal error; 2 bad input; 3 a limit is violated; "
                 + "4 no feasible recipe."})
