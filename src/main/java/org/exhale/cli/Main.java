@@ -15,6 +15,7 @@ import picocli.CommandLine.Command;
                 + "fits kinetics from thermogravimetric runs.",
                 "Predictions are estimates: confirm recipes on test wafers and follow your site's safety rules."},
         subcommands = {NewCommand.class, CheckCommand.class, SimulateCommand.class, PlanCommand.class, CompareCommand.class,
+                RobustCommand.class,
                 FitCommand.class,
                 DemoCommand.class, CompletionCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 all limits met; 1 internal error; 2 bad input; 3 a limit is violated; "
