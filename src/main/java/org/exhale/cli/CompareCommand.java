@@ -90,7 +90,7 @@ final class CompareCommand implements Callable<Integer> {
         long t0 = System.nanoTime();
         ParallelRuns<Compare.Option> runs = new ParallelRuns<>(combos.size(), nThreads,
                 i -> Compare.planOne(cf.bake(), cf.tool(), variations, i, combos.get(i)));
-        List<Compare.Option> done;
+        Summary s;
         try (SaveOnInterrupt save = new SaveOnInterrupt(() -> {
             runs.cancel();
             runs.awaitWorkers(5000);
@@ -98,15 +98,16 @@ final class CompareCommand implements Callable<Integer> {
             write(dir, cf, variations, runs.snapshot(), combos.size(), false, (System.nanoTime() - t0) / 1e9, nThreads);
             System.err.println("Interrupted: kept " + runs.done() + " of " + combos.size() + " options in " + dir
                     + " (\"complete\": false)");
-        }); Progress bar = Progress.start("compare", combos.size(), common.quiet)) {
-            done = runs.run(bar);
-            bar.close();
-            if (!save.claim()) {
-                return Main.INTERNAL;
+        })) {
+            List<Compare.Option> done;
+            try (Progress bar = Progress.start("compare", combos.size(), common.quiet)) {
+                done = runs.run(bar);
             }
+            if (!runs.complete() || !save.claim()) {
+                return Main.INTERNAL; // stopped: the hook keeps what is done
+            }
+            s = write(dir, cf, variations, done, combos.size(), true, (System.nanoTime() - t0) / 1e9, nThreads);
         }
-        double seconds = (System.nanoTime() - t0) / 1e9;
-        Summary s = write(dir, cf, variations, done, combos.size(), true, seconds, nThreads);
         if (!common.quiet) {
             System.out.print(s.text);
             cf.warnings().forEach(w -> System.out.println("Warning: " + w));

@@ -145,7 +145,7 @@ final class RobustCommand implements Callable<Integer> {
                     }
                 }, p -> st.robust = p);
                 st.robust = rp;
-                if (!save.claim()) {
+                if (rp.rounds().stream().anyMatch(r -> r.outcomes().stream().anyMatch(o -> o == null)) || !save.claim()) {
                     return Main.INTERNAL;
                 }
                 result = write(dir, cf, base, ps, limits, s, nThreads, rp.last().outcomes(), rp.last().plan().recipe(), rp,
@@ -158,7 +158,7 @@ final class RobustCommand implements Callable<Integer> {
                 try (Progress bar = Progress.start("robust", samples, common.quiet)) {
                     out = RobustStudy.evaluate(base, ps, limits, s, samples, nThreads, bar, r -> st.runs = r);
                 }
-                if (!save.claim()) {
+                if (out.stream().anyMatch(o -> o == null) || !save.claim()) {
                     return Main.INTERNAL;
                 }
                 result = write(dir, cf, base, ps, limits, s, nThreads, out, base.recipe(), null, true,
