@@ -157,7 +157,8 @@ public final class CaseYamlReader {
         Recipe recipe = root.has("recipe") ? recipe(root.section("recipe")) : null;
         Tool tool = root.has("tool") ? tool(root.section("tool")) : null;
         org.exhale.simulation.Chamber chamber = root.has("chamber") ? chamber(root.section("chamber")) : null;
-        root.allow("name", "substrate", "ambient", "wafer", "recipe", "tool", "chamber");
+        YamlNode uncertaintyNode = root.has("uncertainty") ? root.section("uncertainty") : null;
+        root.allow("name", "substrate", "ambient", "wafer", "recipe", "tool", "chamber", "uncertainty");
         root.finish();
         double cte = substrateCte;
         BakeCase bake = build(root, () -> new BakeCase(caseName, polymer, cavity, cap, film, cte,
@@ -166,7 +167,8 @@ public final class CaseYamlReader {
         // thicker than 100 spans, ...) are input errors, not an internal error mid-run.
         build(capNode.get("thickness"), bake::capStructure);
         plausibility(bake);
-        return new CaseFile(name, bake, tool, defaults, warnings);
+        org.exhale.studies.Uncertainty uncertainty = uncertaintyNode == null ? null : uncertainty(uncertaintyNode, bake);
+        return new CaseFile(name, bake, tool, defaults, warnings, uncertainty);
     }
 
     /** The 1-based line of the code point at {@code position}, or 0 if it is out of the text. */
@@ -551,6 +553,99 @@ public final class CaseYamlReader {
         double fl = limit;
         String fLabel = label;
         return build(c, () -> new org.exhale.simulation.Chamber(wafers, d, fp, fc, v, t, p, f, fl, fLabel));
+    }
+
+    // ---------------------------------------------------------------- uncertainty
+
+    /**
+     * The uncertainty section (docs: studies-demo.md): standard deviations, each optional (0: not
+     * uncertain); {@code components} overrides the kinetics' spread per component name.
+     */
+    private static org.exhale.studies.Uncertainty uncertainty(YamlNode u, BakeCase bake) {
+        org.exhale.studies.Uncertainty.Kinetics all = kinetics(u);
+        java.util.Map<String, org.exhale.studies.Uncertainty.Kinetics> per = new java.util.LinkedHashMap<>();
+        if (u.has("components")) {
+            YamlNode cs = u.section("components");
+            List<String> names = bake.polymer().components().stream().map(Component::name).toList();
+            for (String n : cs.keys()) {
+                if (!names.contains(n)) {
+                    String best = Names.closest(n, names);
+                    throw cs.get(n).error(ErrorKind.UNKNOWN_NAME, "no component named '" + n + "'"
+                            + (best != null ? " (did you mean '" + best + "'?)" : "") + "; components: " + String.join(", ", names));
+                }
+                YamlNode c = cs.section(n);
+                per.put(n, kinetics(c));
+                c.finish();
+            }
+            cs.finish();
+        }
+        double porosity = u.number("porosity_sd", 0, 0, 0.5);
+        if (porosity > 0 && bake.cap().porosity() == 0) {
+            throw u.get("porosity_sd").error(ErrorKind.INCONSISTENT, "the cap is dense (porosity 0): no porosity to vary");
+        }
+        double radius = u.quantity("pore_radius_sd", UnitKind.LENGTH, 0, 0, 1e-4, "a length such as 0.1 nm");
+        double thickness = u.quantity("thickness_sd", UnitKind.LENGTH, 0, 0, 1e-3, "a length such as 5 nm");
+        double tortuosity = u.number("tortuosity_sd", 0, 0, 100);
+        double spread = u.quantity("spread_sd", UnitKind.TEMPERATURE_DIFFERENCE, 0, 0, 100, "a temperature difference such as 1 K");
+        double lag = u.quantity("lag_sd", UnitKind.TIME, 0, 0, 1e4, "a time such as 5 s");
+        double purge = u.quantity("purge_sd", UnitKind.FRACTION, 0, 0, 1, "a relative spread such as 5 %");
+        if (purge > 0 && bake.chamber() == null) {
+            throw u.get("purge_sd").error(ErrorKind.INCONSISTENT, "the case has no chamber section: no purge to vary");
+        }
+        double density = u.quantity("density_sd", UnitKind.DENSITY, 0, 0, 10_000, "a density such as 0.02 g/cm3");
+        u.finish();
+        return within(u, () -> new org.exhale.studies.Uncertainty(all, per, porosity, radius, thickness, tortuosity, spread,
+                lag, purge, density));
+    }
+
+    private static org.exhale.studies.Uncertainty.Kinetics kinetics(YamlNode k) {
+        double ea = k.quantity("Ea_sd", UnitKind.MOLAR_ENERGY, 0, 0, 1e5, "an energy such as 2 kJ/mol");
+        double lnA = k.number("lnA_sd", 0, 0, 20);
+        double rho = k.number("Ea_lnA_correlation", 0, -1, 1);
+        return within(k, () -> new org.exhale.studies.Uncertainty.Kinetics(ea, lnA, rho));
+    }
+
+    /**
+     * A recipe file for {@code --recipe}: a YAML mapping with a {@code recipe} block, as
+     * {@code plan} writes in recipe.yaml (a whole case file is accepted too; only its recipe is read).
+     */
+    public static Recipe readRecipe(Path path) {
+        String name = path.toString();
+        byte[] bytes;
+        try {
+            if (!Files.isRegularFile(path)) {
+                throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "no such file");
+            }
+            if (Files.size(path) > MAX_BYTES) {
+                throw new InputException(ErrorKind.TOO_LARGE, name, "", 0, "file is larger than " + (MAX_BYTES >> 10) + " KiB");
+            }
+            bytes = Files.readAllBytes(path);
+        } catch (IOException e) {
+            throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "cannot read: " + e.getMessage());
+        }
+        String text = decode(name, bytes);
+        LoaderOptions options = new LoaderOptions();
+        options.setMaxAliasesForCollections(20);
+        options.setNestingDepthLimit(20);
+        options.setCodePointLimit((int) MAX_BYTES);
+        options.setAllowDuplicateKeys(false);
+        Node node;
+        try {
+            node = new Yaml(options).compose(new StringReader(text));
+        } catch (MarkedYAMLException e) {
+            int line = e.getProblemMark() == null ? 0 : e.getProblemMark().getLine() + 1;
+            throw new InputException(ErrorKind.SYNTAX, name, "", line, "invalid YAML: " + e.getProblem());
+        } catch (YAMLException e) {
+            throw new InputException(ErrorKind.SYNTAX, name, "", 0, "invalid YAML: " + firstLine(String.valueOf(e.getMessage())));
+        }
+        if (node == null) {
+            throw new InputException(ErrorKind.EMPTY_FILE, name, "", 0, "the file holds no YAML document");
+        }
+        YamlNode root = YamlNode.root(name, node);
+        if (!root.isMapping()) {
+            throw root.error(ErrorKind.WRONG_TYPE, "a recipe file is a mapping with a 'recipe' block, found " + root.describe());
+        }
+        return recipe(root.section("recipe"));
     }
 
     // ---------------------------------------------------------------- warnings
