@@ -16,7 +16,7 @@ import picocli.CommandLine.Command;
                 "Predictions are estimates: confirm recipes on test wafers and follow your site's safety rules."},
         subcommands = {NewCommand.class, CheckCommand.class, SimulateCommand.class, PlanCommand.class, CompareCommand.class,
                 RobustCommand.class, FitCommand.class, ReportCommand.class, DemoCommand.class, BenchCommand.class,
-                CompletionCommand.class, CommandLine.HelpCommand.class},
+                SchemaCommand.class, CompletionCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 all limits met; 1 internal error; 2 bad input; 3 a limit is violated; "
                 + "4 no feasible recipe."})
 public final class Main implements Runnable {

@@ -50,7 +50,20 @@ public final class CaseYamlReader {
     private final List<String> defaults = new ArrayList<>();
     private final List<String> warnings = new ArrayList<>();
 
+    /** Records what the reader asks of each key, for the generated schema; null when not recording. */
+    private final SchemaRecorder recorder;
+
     private CaseYamlReader() {
+        this(null);
+    }
+
+    private CaseYamlReader(SchemaRecorder recorder) {
+        this.recorder = recorder;
+    }
+
+    /** Reads a case while recording every key the reader asks for (see {@link CaseSchema}). */
+    static CaseFile record(String name, byte[] bytes, SchemaRecorder recorder) {
+        return new CaseYamlReader(recorder).readText(name, decode(name, bytes));
     }
 
     public static CaseFile read(Path path) {
@@ -131,7 +144,7 @@ public final class CaseYamlReader {
         if (node == null) {
             throw new InputException(ErrorKind.EMPTY_FILE, name, "", 0, "the file holds no YAML document");
         }
-        YamlNode root = YamlNode.root(name, node);
+        YamlNode root = YamlNode.root(name, node, recorder);
         if (!root.isMapping()) {
             throw root.error(ErrorKind.WRONG_TYPE, "a case file is a mapping of sections (polymer, cavity, cap, ...), found "
                     + root.describe());
@@ -273,7 +286,7 @@ public final class CaseYamlReader {
     }
 
     private static ReactionModel model(YamlNode c) {
-        String id = c.string("model").trim();
+        String id = c.name("model", List.of("nth-order", "sestak-berggren", "avrami-erofeev", "random-scission"));
         YamlNode at = c.get("model");
         try {
             return switch (id) {
@@ -296,7 +309,7 @@ public final class CaseYamlReader {
     // ---------------------------------------------------------------- structure
 
     private Cavity cavity(YamlNode c) {
-        String shapeText = c.string("shape").trim();
+        String shapeText = c.name("shape", List.of("line", "rectangle", "disc"));
         Shape shape;
         switch (shapeText) {
             case "line" -> shape = Shape.LINE;
@@ -323,10 +336,7 @@ public final class CaseYamlReader {
 
     private CapFilm capFilm(YamlNode c) {
         double h = c.requiredQuantity("thickness", UnitKind.LENGTH, 1e-9, 1e-3, "a thickness in [1 nm, 1 mm]");
-        double e = c.number("porosity", 0, 0, 0.999);
-        if (!c.has("porosity")) {
-            c.get("porosity");
-        }
+        double e = c.requiredNumber("porosity", 0, 0.999);
         if (e >= 0.999) {
             throw c.get("porosity").error(ErrorKind.OUT_OF_RANGE, "porosity must be below 1");
         }
@@ -335,7 +345,9 @@ public final class CaseYamlReader {
         double tau = Double.NaN;
         if (c.has("tortuosity")) {
             String t = c.string("tortuosity").trim();
-            if (!t.equals("bruggeman")) {
+            if (t.equals("bruggeman")) {
+                c.name("tortuosity", List.of("bruggeman"));
+            } else {
                 tau = c.number("tortuosity", 1, 1, 1000);
             }
         } else if (e > 0) {
@@ -565,7 +577,7 @@ public final class CaseYamlReader {
         org.exhale.studies.Uncertainty.Kinetics all = kinetics(u);
         java.util.Map<String, org.exhale.studies.Uncertainty.Kinetics> per = new java.util.LinkedHashMap<>();
         if (u.has("components")) {
-            YamlNode cs = u.section("components");
+            YamlNode cs = u.section("components").keyedByName();
             List<String> names = bake.polymer().components().stream().map(Component::name).toList();
             for (String n : cs.keys()) {
                 if (!names.contains(n)) {

@@ -216,6 +216,14 @@ public final class YamlNode {
         return s.getValue();
     }
 
+    /** Marks this mapping's keys as names chosen by the user (component names), not fixed keys. */
+    public YamlNode keyedByName() {
+        if (recorder != null) {
+            recorder.keyedByName(path);
+        }
+        return this;
+    }
+
     /** A name from a fixed list; the reader checks it (with a did-you-mean), the schema lists the choices. */
     public String name(String key, List<String> choices) {
         YamlNode c = get(key);
