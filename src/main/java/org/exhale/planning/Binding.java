@@ -33,14 +33,17 @@ final class Binding {
                     if (row[0] < s.startTimeS() || row[0] > s.endTimeS()) {
                         continue;
                     }
+                    double chamber = bake.chamber() == null || !bake.chamber().hasLimit() ? Double.POSITIVE_INFINITY
+                            : ratio(bake.chamber().limitFraction() * 1e6, row[c.column("chamber_ppm")]);
                     double[] m = {
+                            chamber,
                             ratio(bake.limits().maxPressurePa(), row[c.column("excess_pressure_Pa")]),
                             cap == null ? Double.POSITIVE_INFINITY : ratio(cap.allowedStressPa(), row[c.column("edge_stress_Pa")]),
                             cap == null ? Double.POSITIVE_INFINITY : ratio(cap.allowedCrackingJPerM2(), row[c.column("crack_release_J_m2")]),
                             cap == null ? Double.POSITIVE_INFINITY : ratio(cap.allowedDelaminationJPerM2(), row[c.column("delamination_release_J_m2")]),
                             cap == null ? Double.POSITIVE_INFINITY : ratio(cap.bucklingStressPa(), row[c.column("compression_Pa")]),
                             cap == null ? Double.POSITIVE_INFINITY : ratio(cap.maxDeflectionM(), row[c.column("deflection_m")])};
-                    String[] names = {"pressure", "strength", "cracking", "delamination", "buckling", "deflection"};
+                    String[] names = {"chamber", "pressure", "strength", "cracking", "delamination", "buckling", "deflection"};
                     for (int q = 0; q < m.length; q++) {
                         if (m[q] < best) {
                             best = m[q];

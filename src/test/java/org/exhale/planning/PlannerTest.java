@@ -172,4 +172,22 @@ class PlannerTest {
         assertTrue(q.infeasibility().bestResidue() > 0.005);
         assertTrue(q.infeasibility().suggestion().contains("ceiling"), q.infeasibility().suggestion());
     }
+
+    @Test
+    void planHoldsABindingChamberLimit() {
+        // the porous demo's load into its purged chamber peaks near 440 ppm under its fastest plan
+        // (see 'exhale simulate'); a 300 ppm limit must slow the plan down, and the plan must keep it
+        CaseFile cf = demo("porous-line.yaml");
+        org.exhale.simulation.Chamber c = cf.bake().chamber();
+        BakeCase tight = cf.bake().withChamber(new org.exhale.simulation.Chamber(c.wafers(), c.waferDiameterM(),
+                c.patternFraction(), c.cavityFraction(), c.volumeM3(), c.temperatureK(), c.pressurePa(), c.purgeMolPerS(),
+                300e-6, "300 ppm"));
+        PlanResult free = Planner.plan(cf.bake(), cf.tool());
+        PlanResult p = Planner.plan(tight, cf.tool());
+        assertTrue(p.verified(), "not verified: " + p.infeasibility());
+        var m = p.verification().margin("chamber");
+        assertTrue(m.holds() && m.margin() < 1.2, "chamber margin " + m.margin() + " should hold and bind");
+        assertTrue(p.durationS() > free.durationS(), "the chamber limit did not slow the plan");
+        assertTrue(p.binding().contains("chamber"), "no step bound by the chamber: " + p.binding());
+    }
 }
