@@ -105,10 +105,6 @@ public final class Planner {
         }
         if (!ceilingEval.feasible()) {
             Shape rider = riderSeed();
-            if (rider != null && Boolean.getBoolean("exhale.debugPlan")) {
-                System.err.println("rider temps " + java.util.Arrays.toString(rider.temps) + " durations "
-                        + java.util.Arrays.toString(rider.durations));
-            }
             if (rider != null) {
                 Eval riderEval = evaluate(rider);
                 notes.add("rider seed (" + rider.temps.length + " ramps along the highest admissible temperature): "
@@ -124,9 +120,6 @@ public final class Planner {
                     }
                     Shape stretched = slowed(rider, f);
                     Eval se = evaluate(stretched);
-                    if (Boolean.getBoolean("exhale.debugPlan")) {
-                        System.err.println("stretch " + f + " -> " + se);
-                    }
                     if (se.feasible()) {
                         best = stretched;
                         bestEval = se;
@@ -188,9 +181,6 @@ public final class Planner {
             BakeResult proof = BakeSimulator.simulate(bake.withRecipe(recipe), SimulationSettings.defaults().withSampleInterval(10));
             evaluations++;
             double holdEnd = holdEnd(recipe);
-            if (Boolean.getBoolean("exhale.debugPlan")) {
-                System.err.println("proof backoff " + backoff + ": " + proof.violated());
-            }
             if (proof.feasible()) {
                 if (backoff > 0) {
                     notes.add("ramps after the first slowed by " + Math.round(4 * backoff) + " % to keep every limit after "
