@@ -28,12 +28,7 @@ public final class LowerBound {
         TemperatureCap cap = new TemperatureCap(bake.recipeStartK(), bake.limits().ceilingK() - spread,
                 tool.maxRampUpKPerS(), bake.wafer().lagS());
         int k = bake.polymer().size();
-        InstantLimits[] limits = new InstantLimits[k];
-        for (int j = 0; j < k; j++) {
-            boolean[] only = new boolean[k];
-            only[j] = true;
-            limits[j] = new InstantLimits(bake, only);
-        }
+        InstantLimits limits = new InstantLimits(bake);
         double[] r = integrate(bake, limits, cap, -spread, true);
         double[] c = integrate(bake, limits, cap, -spread, false);
         return new Result(r[0], c[0], (int) r[1]);
@@ -45,8 +40,12 @@ public final class LowerBound {
      * of every recipe at every instant, so u(t) ≥ Σ w_j (1 − b_j(t)) for every recipe: this is at
      * least the largest single-component bound of MODEL.md §9 and still valid.
      */
-    static double[] integrate(BakeCase bake, InstantLimits[] limits, TemperatureCap cap, double offsetK, boolean withLimits) {
-        int k = limits.length;
+    static double[] integrate(BakeCase bake, InstantLimits limits, TemperatureCap cap, double offsetK, boolean withLimits) {
+        int k = limits.size();
+        double[] a0 = new double[k];
+        for (int j = 0; j < k; j++) {
+            a0[j] = bake.polymer().initialConversion(j);
+        }
         double[] w = new double[k];
         double[] b = new double[k];
         double[] r1 = new double[k];
@@ -65,7 +64,7 @@ public final class LowerBound {
         double horizon = 2 * 86_400;   // beyond the planner's 24 h horizon the bound is reported as infinite
         double u = residue(w, b);
         while (u > target) {
-            rates(limits, alpha, b, t, cap, offsetK, startK, withLimits, r1);
+            rates(limits, a0, b, t, cap, offsetK, startK, withLimits, r1);
             double fastest = 0;
             for (int j = 0; j < k; j++) {
                 fastest = Math.max(fastest, r1[j]);
@@ -75,11 +74,11 @@ public final class LowerBound {
             double maxDt = t < cap.settledS() ? 10 : 60;
             double dt = fastest > 1e-12 ? Math.min(Math.max(5e-4 / fastest, 0.05), maxDt) : (t < cap.settledS() ? 10 : 1e4);
             step(b, r1, 0.5 * dt, tmp);
-            rates(limits, alpha, tmp, t + 0.5 * dt, cap, offsetK, startK, withLimits, r2);
+            rates(limits, a0, tmp, t + 0.5 * dt, cap, offsetK, startK, withLimits, r2);
             step(b, r2, 0.5 * dt, tmp);
-            rates(limits, alpha, tmp, t + 0.5 * dt, cap, offsetK, startK, withLimits, r3);
+            rates(limits, a0, tmp, t + 0.5 * dt, cap, offsetK, startK, withLimits, r3);
             step(b, r3, dt, tmp);
-            rates(limits, alpha, tmp, t + dt, cap, offsetK, startK, withLimits, r4);
+            rates(limits, a0, tmp, t + dt, cap, offsetK, startK, withLimits, r4);
             double[] next = new double[k];
             for (int j = 0; j < k; j++) {
                 next[j] = Math.min(1, b[j] + dt * (r1[j] + 2 * r2[j] + 2 * r3[j] + r4[j]) / 6);
@@ -121,29 +120,49 @@ public final class LowerBound {
         }
     }
 
-    private static void rates(InstantLimits[] limits, double[] alpha, double[] b, double t, TemperatureCap cap,
+    private static void rates(InstantLimits limits, double[] a0, double[] b, double t, TemperatureCap cap,
                               double offsetK, double startK, boolean withLimits, double[] out) {
+        double top = cap.wafer(t) + offsetK;
+        double[] gen = new double[b.length];
         for (int j = 0; j < b.length; j++) {
-            out[j] = b[j] >= 1 ? 0 : rate(limits[j], j, alpha, b[j], t, cap, offsetK, startK, withLimits);
+            if (b[j] >= 1) {
+                out[j] = 0;
+                continue;
+            }
+            int jj = j;
+            double temp = withLimits
+                    ? highestFeasible(temperature -> limits.monotoneMargin(temperature, floorGeneration(limits, a0, b, jj,
+                            temperature, gen)), top, startK + offsetK - 100)
+                    : top;
+            out[j] = Double.isNaN(temp) ? 0 : limits.rate(j, temp, b[j]);
         }
     }
 
-    private static double rate(InstantLimits limits, int j, double[] alpha, double b, double t, TemperatureCap cap,
-                               double offsetK, double startK, boolean withLimits) {
-        double top = cap.wafer(t) + offsetK;
-        double temp = withLimits ? highestFeasible(limits, j, alpha, b, top, startK + offsetK - 100) : top;
-        return Double.isNaN(temp) ? 0 : limits.rate(j, temp, b);
+    /**
+     * Gas generation for the bound of component j at temperature T: component j at its bound b_j,
+     * every other component at the least it can generate there — every recipe has
+     * α_i(0) ≤ α_i(t) ≤ b_i(t), and every f of the four models is unimodal, so
+     * f_i(α_i) ≥ min(f_i(α_i(0)), f_i(b_i)). Less gas only loosens the monotone limits, so the
+     * highest admissible temperature found with it bounds that of every recipe.
+     */
+    static double[] floorGeneration(InstantLimits limits, double[] a0, double[] b, int j, double temperatureK,
+                                    double[] gen) {
+        for (int i = 0; i < b.length; i++) {
+            double f = i == j ? limits.rate(i, temperatureK, b[i])
+                    : Math.min(limits.rate(i, temperatureK, a0[i]), limits.rate(i, temperatureK, Math.min(b[i], 1)));
+            gen[i] = limits.gasifiable(i) * f;
+        }
+        return gen;
     }
 
-    /** The highest T ≤ top at which every instantaneous limit holds with component j at conversion b; NaN if none above floor. */
-    static double highestFeasible(InstantLimits limits, int j, double[] alpha, double b, double top, double floor) {
-        alpha[j] = b;
-        if (limits.margin(top, alpha) >= 1) {
+    /** The highest T ≤ top at which margin(T) ≥ 1; NaN if none above floor. */
+    static double highestFeasible(java.util.function.DoubleUnaryOperator margin, double top, double floor) {
+        if (margin.applyAsDouble(top) >= 1) {
             return top;
         }
         double hi = top;
         double lo = top - 2;
-        while (lo > floor && limits.margin(lo, alpha) < 1) {
+        while (lo > floor && margin.applyAsDouble(lo) < 1) {
             hi = lo;
             lo -= 2;
         }
@@ -152,7 +171,7 @@ public final class LowerBound {
         }
         for (int it = 0; it < 40 && hi - lo > 1e-6; it++) {
             double mid = 0.5 * (lo + hi);
-            if (limits.margin(mid, alpha) >= 1) {
+            if (margin.applyAsDouble(mid) >= 1) {
                 lo = mid;
             } else {
                 hi = mid;

@@ -85,6 +85,35 @@ public final class InstantLimits {
         return m;
     }
 
+    /**
+     * The smallest margin of the instantaneous limits that can only tighten as gas is added —
+     * trapped pressure, edge strength, channel cracking, deflection — and of buckling (which does
+     * not depend on the gas), with each component's gas generation given [mol m⁻² s⁻¹].
+     * Delamination is left out: under a compressive, membrane-dominated cap its energy release
+     * can fall as the pressure rises, so a smaller generation would not give a looser limit.
+     */
+    public double monotoneMargin(double temperatureK, double[] generation) {
+        for (int j = 0; j < components.length; j++) {
+            gen[j] = generation[j];
+            perm[j] = transport.permeance(j, temperatureK);
+        }
+        double dp = transport.quasiSteadyExcessPressure(temperatureK, gen, perm);
+        double m = ratio(maxPressurePa, dp);
+        if (structure != null) {
+            CapResponse r = structure.evaluate(temperatureK, dp);
+            m = Math.min(m, ratio(structure.allowedStressPa(), r.edgeStressPa()));
+            m = Math.min(m, ratio(structure.allowedCrackingJPerM2(), r.channelCrackingJPerM2()));
+            m = Math.min(m, ratio(structure.bucklingStressPa(), r.bucklingCompressionPa()));
+            m = Math.min(m, ratio(structure.maxDeflectionM(), Math.abs(r.deflectionM())));
+        }
+        return m;
+    }
+
+    /** Gasifiable moles of component j per area, m0 w_j (1 − c_j)/M_j [mol/m²]. */
+    public double gasifiable(int j) {
+        return gasifiable[j];
+    }
+
     private static double ratio(double allowed, double actual) {
         if (!Double.isFinite(allowed) || actual <= 0) {
             return Double.POSITIVE_INFINITY;
