@@ -6,14 +6,18 @@ import org.exhale.simulation.InstantLimits;
 
 /**
  * The lower bound on the bake time of MODEL.md §9. At time t and conversion α no recipe converts
- * component j faster than r*(α, t) = max{k_j(T) f_j(α) : T ≤ T_cap(t), every instantaneous limit
- * holds}, so by the comparison lemma α_j(t) ≤ b(t) with db/dt = r*(b, t); the time b needs to
- * reach α_j* = 1 − u_target/w_j bounds every recipe. The bound is the largest over components,
- * each computed with the other components' gas left out (less gas only loosens the limits).
- * The cold corner is used (its conversion must reach the target; the hot corner's limits are left
- * out, which keeps the bound valid). Limits that depend on history (thermal dose) are left out.
- * The pressure-driven limits are evaluated quasi-steadily: the bound is rigorous only where the
- * gas is quasi-steady; otherwise the ceiling-only bound is rigorous and is reported beside it.
+ * component j at a corner faster than r*(α, t) = max{k_j(T) f_j(α) : T ≤ T_cap(t) + offset, every
+ * monotone instantaneous limit holds}, so by the comparison lemma α_j(t) ≤ b(t) with
+ * db/dt = r*(b, t); the bake cannot end before every corner's Σ w_j (1 − b_j(t)) reaches the target.
+ * Strengthenings of the contract, each keeping the bound valid (docs/model.md): all bounds are
+ * integrated together; the other components generate at least their floor of gas instead of none;
+ * and both wafer corners are bounded together, a temperature being admissible at one corner only if
+ * the limits also hold at the other corner's temperature (a fixed offset away) with that corner's
+ * floor of gas. Only limits that tighten as gas is added are used; limits that depend on history
+ * (thermal dose, chamber) are left out. The pressure-driven limits are evaluated quasi-steadily: the
+ * bound is rigorous only where the gas is quasi-steady; otherwise the ceiling-only bound is
+ * rigorous and is reported beside it. The highest admissible temperature is found by scanning down
+ * in 2 K steps and bisecting, so a feasible band narrower than 2 K above the one found could be missed.
  */
 public final class LowerBound {
     /** The bound with every instantaneous limit, the ceiling-only bound, and the component that finishes last. */
@@ -27,70 +31,75 @@ public final class LowerBound {
         double spread = bake.wafer().spreadK();
         TemperatureCap cap = new TemperatureCap(bake.recipeStartK(), bake.limits().ceilingK() - spread,
                 tool.maxRampUpKPerS(), bake.wafer().lagS());
-        int k = bake.polymer().size();
         InstantLimits limits = new InstantLimits(bake);
-        double[] r = integrate(bake, limits, cap, -spread, true);
-        double[] c = integrate(bake, limits, cap, -spread, false);
+        double[] offsets = spread > 0 ? new double[]{-spread, spread} : new double[]{0};
+        double[] r = integrate(bake, limits, cap, offsets, true);
+        double[] c = integrate(bake, limits, cap, offsets, false);
         return new Result(r[0], c[0], (int) r[1]);
     }
 
     /**
-     * Integrates every component's bound b_j together and returns the first time at which
-     * Σ w_j (1 − b_j) ≤ u_target, and the component whose bound finishes last. Each b_j bounds α_j
-     * of every recipe at every instant, so u(t) ≥ Σ w_j (1 − b_j(t)) for every recipe: this is at
-     * least the largest single-component bound of MODEL.md §9 and still valid.
+     * Integrates the bounds b_cj of every component j at every corner c together and returns the
+     * first time at which the residue Σ w_j (1 − b_cj) of every corner reaches the target, and the
+     * component that finishes last. Each b_cj bounds α_j at corner c of every recipe at every
+     * instant. A temperature T at corner c is admissible only if the monotone limits hold at every
+     * corner d at its own temperature T + (offset_d − offset_c) — the corners differ by a fixed
+     * offset — with corner d's gas at least its floor ({@link #floorGeneration}).
      */
-    static double[] integrate(BakeCase bake, InstantLimits limits, TemperatureCap cap, double offsetK, boolean withLimits) {
+    static double[] integrate(BakeCase bake, InstantLimits limits, TemperatureCap cap, double[] offsets, boolean withLimits) {
         int k = limits.size();
+        int corners = offsets.length;
+        int n = k * corners;
         double[] a0 = new double[k];
+        double[] w = new double[k];
+        double[] b = new double[n];
         for (int j = 0; j < k; j++) {
             a0[j] = bake.polymer().initialConversion(j);
-        }
-        double[] w = new double[k];
-        double[] b = new double[k];
-        double[] r1 = new double[k];
-        double[] r2 = new double[k];
-        double[] r3 = new double[k];
-        double[] r4 = new double[k];
-        double[] tmp = new double[k];
-        double[] alpha = new double[k];
-        for (int j = 0; j < k; j++) {
             w[j] = bake.polymer().component(j).fraction();
-            b[j] = bake.polymer().initialConversion(j);
+            for (int c = 0; c < corners; c++) {
+                b[c * k + j] = a0[j];
+            }
         }
+        double[] r1 = new double[n];
+        double[] r2 = new double[n];
+        double[] r3 = new double[n];
+        double[] r4 = new double[n];
+        double[] tmp = new double[n];
+        double[] guess = new double[n];
+        java.util.Arrays.fill(guess, Double.NaN);
         double target = bake.limits().residue();
         double startK = bake.recipeStartK();
         double t = 0;
         double horizon = 2 * 86_400;   // beyond the planner's 24 h horizon the bound is reported as infinite
-        double u = residue(w, b);
+        double u = residue(w, b, k);
         while (u > target) {
-            rates(limits, a0, b, t, cap, offsetK, startK, withLimits, r1);
+            rates(limits, a0, b, t, cap, offsets, startK, withLimits, r1, guess);
             double fastest = 0;
-            for (int j = 0; j < k; j++) {
-                fastest = Math.max(fastest, r1[j]);
+            for (double r : r1) {
+                fastest = Math.max(fastest, r);
             }
             // steps of at most 5e-4 in conversion (RK4 then errs by far less than the planner's tolerances); at most
             // 10 s while the cap still moves, 60 s once it is steady, and long steps only while nothing converts
             double maxDt = t < cap.settledS() ? 10 : 60;
             double dt = fastest > 1e-12 ? Math.min(Math.max(5e-4 / fastest, 0.05), maxDt) : (t < cap.settledS() ? 10 : 1e4);
             step(b, r1, 0.5 * dt, tmp);
-            rates(limits, a0, tmp, t + 0.5 * dt, cap, offsetK, startK, withLimits, r2);
+            rates(limits, a0, tmp, t + 0.5 * dt, cap, offsets, startK, withLimits, r2, guess);
             step(b, r2, 0.5 * dt, tmp);
-            rates(limits, a0, tmp, t + 0.5 * dt, cap, offsetK, startK, withLimits, r3);
+            rates(limits, a0, tmp, t + 0.5 * dt, cap, offsets, startK, withLimits, r3, guess);
             step(b, r3, dt, tmp);
-            rates(limits, a0, tmp, t + dt, cap, offsetK, startK, withLimits, r4);
-            double[] next = new double[k];
-            for (int j = 0; j < k; j++) {
-                next[j] = Math.min(1, b[j] + dt * (r1[j] + 2 * r2[j] + 2 * r3[j] + r4[j]) / 6);
+            rates(limits, a0, tmp, t + dt, cap, offsets, startK, withLimits, r4, guess);
+            double[] next = new double[n];
+            for (int i = 0; i < n; i++) {
+                next[i] = Math.min(1, b[i] + dt * (r1[i] + 2 * r2[i] + 2 * r3[i] + r4[i]) / 6);
             }
-            double uNext = residue(w, next);
+            double uNext = residue(w, next, k);
             if (uNext <= target) {
                 double last = 0;
                 int which = 0;
-                for (int j = 0; j < k; j++) {
-                    double need = 1 - target / w[j];
-                    if (b[j] < need && w[j] * (1 - b[j]) > last) {
-                        last = w[j] * (1 - b[j]);
+                for (int i = 0; i < n; i++) {
+                    int j = i % k;
+                    if (w[j] * (1 - b[i]) > last) {
+                        last = w[j] * (1 - b[i]);
                         which = j;
                     }
                 }
@@ -106,12 +115,17 @@ public final class LowerBound {
         return new double[]{t, -1};
     }
 
-    private static double residue(double[] w, double[] b) {
-        double u = 0;
-        for (int j = 0; j < w.length; j++) {
-            u += w[j] * (1 - Math.min(b[j], 1));
+    /** The largest residue over the corners. */
+    private static double residue(double[] w, double[] b, int k) {
+        double worst = 0;
+        for (int c = 0; c < b.length / k; c++) {
+            double u = 0;
+            for (int j = 0; j < k; j++) {
+                u += w[j] * (1 - Math.min(b[c * k + j], 1));
+            }
+            worst = Math.max(worst, u);
         }
-        return u;
+        return worst;
     }
 
     private static void step(double[] b, double[] r, double h, double[] out) {
@@ -121,55 +135,85 @@ public final class LowerBound {
     }
 
     private static void rates(InstantLimits limits, double[] a0, double[] b, double t, TemperatureCap cap,
-                              double offsetK, double startK, boolean withLimits, double[] out) {
-        double top = cap.wafer(t) + offsetK;
-        double[] gen = new double[b.length];
-        for (int j = 0; j < b.length; j++) {
-            if (b[j] >= 1) {
-                out[j] = 0;
-                continue;
+                              double[] offsets, double startK, boolean withLimits, double[] out, double[] guess) {
+        int k = limits.size();
+        double lagged = cap.wafer(t);
+        double[] gen = new double[k];
+        for (int c = 0; c < offsets.length; c++) {
+            double top = lagged + offsets[c];
+            for (int j = 0; j < k; j++) {
+                int i = c * k + j;
+                if (b[i] >= 1) {
+                    out[i] = 0;
+                    continue;
+                }
+                int cc = c;
+                int jj = j;
+                double temp = withLimits ? highestFeasible(temperature -> {
+                    double m = Double.POSITIVE_INFINITY;
+                    for (int d = 0; d < offsets.length; d++) {
+                        double td = temperature + offsets[d] - offsets[cc];
+                        m = Math.min(m, limits.monotoneMargin(td,
+                                floorGeneration(limits, a0, b, d * k, d == cc ? jj : -1, td, gen)));
+                    }
+                    return m;
+                }, top, startK + offsets[c] - 100, guess[i]) : top;
+                guess[i] = temp;
+                out[i] = Double.isNaN(temp) ? 0 : limits.rate(j, temp, b[i]);
             }
-            int jj = j;
-            double temp = withLimits
-                    ? highestFeasible(temperature -> limits.monotoneMargin(temperature, floorGeneration(limits, a0, b, jj,
-                            temperature, gen)), top, startK + offsetK - 100)
-                    : top;
-            out[j] = Double.isNaN(temp) ? 0 : limits.rate(j, temp, b[j]);
         }
     }
 
     /**
-     * Gas generation for the bound of component j at temperature T: component j at its bound b_j,
-     * every other component at the least it can generate there — every recipe has
+     * Gas generation at one corner (its bounds start at {@code b[from]}) for the bound of component
+     * j at temperature T (j = −1: no component is being bounded at this corner): component j at
+     * its bound b_j, every other component at the least it can generate there — every recipe has
      * α_i(0) ≤ α_i(t) ≤ b_i(t), and every f of the four models is unimodal, so
      * f_i(α_i) ≥ min(f_i(α_i(0)), f_i(b_i)). Less gas only loosens the monotone limits, so the
      * highest admissible temperature found with it bounds that of every recipe.
      */
-    static double[] floorGeneration(InstantLimits limits, double[] a0, double[] b, int j, double temperatureK,
+    static double[] floorGeneration(InstantLimits limits, double[] a0, double[] b, int from, int j, double temperatureK,
                                     double[] gen) {
-        for (int i = 0; i < b.length; i++) {
-            double f = i == j ? limits.rate(i, temperatureK, b[i])
-                    : Math.min(limits.rate(i, temperatureK, a0[i]), limits.rate(i, temperatureK, Math.min(b[i], 1)));
+        for (int i = 0; i < a0.length; i++) {
+            double bi = Math.min(b[from + i], 1);
+            double f = i == j ? limits.rate(i, temperatureK, bi)
+                    : Math.min(limits.rate(i, temperatureK, a0[i]), limits.rate(i, temperatureK, bi));
             gen[i] = limits.gasifiable(i) * f;
         }
         return gen;
     }
 
-    /** The highest T ≤ top at which margin(T) ≥ 1; NaN if none above floor. */
-    static double highestFeasible(java.util.function.DoubleUnaryOperator margin, double top, double floor) {
+    /**
+     * The highest T ≤ top at which margin(T) ≥ 1, to within 1e-3 K and rounded up (so the bound
+     * stays on the safe side); NaN if none above floor. The search starts from {@code guess} (the
+     * answer of the previous call, NaN for none) and steps 2 K at a time before bisecting.
+     */
+    static double highestFeasible(java.util.function.DoubleUnaryOperator margin, double top, double floor, double guess) {
         if (margin.applyAsDouble(top) >= 1) {
             return top;
         }
-        double hi = top;
-        double lo = top - 2;
-        while (lo > floor && margin.applyAsDouble(lo) < 1) {
-            hi = lo;
-            lo -= 2;
+        double hi;
+        double lo;
+        double g = Double.isNaN(guess) ? top - 2 : Math.min(guess, top - 1e-3);
+        if (g > floor && margin.applyAsDouble(g) >= 1) {
+            lo = g;
+            hi = Math.min(g + 2, top);
+            while (hi < top && margin.applyAsDouble(hi) >= 1) {
+                lo = hi;
+                hi = Math.min(hi + 2, top);
+            }
+        } else {
+            hi = g;
+            lo = g - 2;
+            while (lo > floor && margin.applyAsDouble(lo) < 1) {
+                hi = lo;
+                lo -= 2;
+            }
+            if (lo <= floor) {
+                return Double.NaN;
+            }
         }
-        if (lo <= floor) {
-            return Double.NaN;
-        }
-        for (int it = 0; it < 40 && hi - lo > 1e-6; it++) {
+        while (hi - lo > 1e-3) {
             double mid = 0.5 * (lo + hi);
             if (margin.applyAsDouble(mid) >= 1) {
                 lo = mid;
@@ -177,6 +221,6 @@ public final class LowerBound {
                 hi = mid;
             }
         }
-        return lo;
+        return hi;
     }
 }
