@@ -235,6 +235,19 @@ final class CompareCharts {
         p.add(front, 0, 0, 1, 2.6f, false);
         p.add(bad, 1, 0, 5, 2f, true);
         p.limit(1, "margin 1: the limit");
+        double xlo = Double.POSITIVE_INFINITY;
+        double xhi = Double.NEGATIVE_INFINITY;
+        for (XYSeries ser : List.of(all, bad)) {
+            for (int k = 0; k < ser.getItemCount(); k++) {
+                xlo = Math.min(xlo, ser.getX(k).doubleValue());
+                xhi = Math.max(xhi, ser.getX(k).doubleValue());
+            }
+        }
+        if (Double.isFinite(xlo)) {
+            // room on both sides: markers at the ends are not cut, the labels fit
+            double pad = Math.max(0.05 * (xhi - xlo), Math.max(0.01 * Math.abs(xhi), 0.05));
+            p.xRange(xlo - pad, xhi + 2 * pad);
+        }
         p.range(0, Math.max(1.25, hiMargin * 1.12));
         XYPlot plot = p.build();
         IntervalMarker band = new IntervalMarker(0, 1, ChartStyle.translucent(ChartStyle.LIMIT, 22));
@@ -403,9 +416,10 @@ final class CompareCharts {
             boolean ok = o.feasible() && Double.isFinite(o.durationS());
             if (!ok) {
                 // a cross over the cell: infeasible reads without colour
-                BasicStroke s = new BasicStroke(1.6f);
-                plot.addAnnotation(new XYLineAnnotation(i - 0.5, j - 0.5, i + 0.5, j + 0.5, s, ChartStyle.LIMIT));
-                plot.addAnnotation(new XYLineAnnotation(i - 0.5, j + 0.5, i + 0.5, j - 0.5, s, ChartStyle.LIMIT));
+                BasicStroke s = new BasicStroke(1.4f);
+                double w = 0.38;
+                plot.addAnnotation(new XYLineAnnotation(i - w, j - w, i + w, j + w, s, ChartStyle.LIMIT));
+                plot.addAnnotation(new XYLineAnnotation(i - w, j + w, i + w, j - w, s, ChartStyle.LIMIT));
             }
             if (o.rank() == 1 && ok) {
                 plot.addAnnotation(new XYShapeAnnotation(new Rectangle2D.Double(i - 0.46, j - 0.46, 0.92, 0.92),
@@ -505,7 +519,7 @@ final class CompareCharts {
         List<Option> opts = new ArrayList<>(d.options());
         opts.sort(Comparator.comparingDouble(o -> o.values()[0]));
         XYSeries plan = new XYSeries("planned duration", false, true);
-        XYSeries bound = new XYSeries("lower bound (no recipe within the limits is shorter)", false, true);
+        XYSeries bound = new XYSeries("lower bound of the feasible options (no recipe within the limits is shorter)", false, true);
         XYSeries bad = new XYSeries("infeasible: no plan (its lower bound)", false, true);
         for (Option o : opts) {
             double v = o.values()[0];
@@ -516,16 +530,18 @@ final class CompareCharts {
                 plan.add(v, o.durationS() / 60);
             }
             if (Double.isFinite(o.lowerBoundS())) {
-                bound.add(v, o.lowerBoundS() / 60);
-                if (!o.feasible()) {
-                    bad.add(v, o.lowerBoundS() / 60);
-                }
+                (o.feasible() ? bound : bad).add(v, o.lowerBoundS() / 60);
             }
         }
         PlotBuilder p = new PlotBuilder(d.labels().get(0), "Planned duration to the residue target [min]", false);
         p.add(plan, 0, 0, 1, 2.6f, false);
         p.add(bound, 7, 1, 2, 2f, false);
         p.add(bad, 1, 0, 5, 2f, true);
+        List<Double> xs = levels(opts, 0);
+        if (!xs.isEmpty()) {
+            double pad = Math.max(0.04 * (xs.get(xs.size() - 1) - xs.get(0)), 1e-9 + 0.01 * Math.abs(xs.get(0)));
+            p.xRange(xs.get(0) - pad, xs.get(xs.size() - 1) + pad);
+        }
         XYPlot plot = p.build();
         JFreeChart c = ChartStyle.chart("Planned duration over the varied value", plot, subtitle);
         return new Figure("compare-line", "Planned duration over the varied value",

@@ -74,6 +74,9 @@ final class RobustCharts {
         if (s != null && !s.columns("", MARGIN_SUFFIX).isEmpty()) {
             margins().ifPresent(out::add);
         }
+        if (s != null && !s.columns("", MARGIN_SUFFIX).isEmpty()) {
+            tightest().ifPresent(out::add);
+        }
         if (s != null && s.has(HEADROOM)) {
             headroom().ifPresent(out::add);
         }
@@ -171,7 +174,8 @@ final class RobustCharts {
                 var e = it.next();
                 String key = e.getKey();
                 if (key.matches("p[0-9.]+_s") && e.getValue().isNumber()) {
-                    String name = "P" + key.substring(1, key.length() - 2);
+                    // p95_s and p95.00_s are one quantile (the second is the study's own, named with its digits)
+                    String name = "P" + ReportText.plain(Double.parseDouble(key.substring(1, key.length() - 2)), 4);
                     if (quantiles.contains(name)) {
                         continue;
                     }
@@ -282,7 +286,10 @@ final class RobustCharts {
             double med = sorted[sorted.length / 2];
             String text = "min " + ReportText.sig(sorted[0], 4) + ", median " + ReportText.sig(med, 4)
                     + (sorted.length < s.size() ? " (" + (s.size() - sorted.length) + " never loaded)" : "");
-            boolean rightHalf = (b - Math.log10(axisLo)) / span > 0.6;
+            // the text on the side of the histogram with more room
+            double leftRoom = (a - Math.log10(axisLo)) / span;
+            double rightRoom = 1 - (b - Math.log10(axisLo)) / span;
+            boolean rightHalf = leftRoom > rightRoom;
             XYTextAnnotation t = new XYTextAnnotation(text, rightHalf ? Math.pow(10, a) : Math.pow(10, b), row + 0.05);
             t.setFont(ChartStyle.NOTE);
             t.setPaint(ChartStyle.INK);
@@ -317,6 +324,46 @@ final class RobustCharts {
                 "For each limit, the histogram of its ratio margin (allowed / actual) over the samples on a shared "
                         + "log scale; a sample violates the limit left of the line at 1. Each row is scaled to its own "
                         + "tallest bin; the text gives the smallest and the median margin.", c));
+    }
+
+    /** The ratio margin with the smallest median: its histogram on a linear scale, with the limit at 1. */
+    private java.util.Optional<Figure> tightest() {
+        String best = null;
+        double bestMedian = Double.POSITIVE_INFINITY;
+        for (String col : s.columns("", MARGIN_SUFFIX)) {
+            double[] v = finite(col, x -> x);
+            if (v.length == 0) {
+                continue;
+            }
+            Arrays.sort(v);
+            if (v[v.length / 2] < bestMedian) {
+                bestMedian = v[v.length / 2];
+                best = col;
+            }
+        }
+        if (best == null) {
+            return java.util.Optional.empty();
+        }
+        String name = ReportText.label(best.substring(0, best.length() - MARGIN_SUFFIX.length()));
+        double[] v = finite(best, x -> x);
+        double lo = Arrays.stream(v).min().orElse(1);
+        double hi = Arrays.stream(v).max().orElse(1);
+        XYPlot plot = histogram(name, v, "Margin of " + name + ", allowed / actual [–]", lo, hi);
+        // the line at 1 in view: to the left of the data when all samples hold, and some room to the right
+        double a = Math.min(lo, 1);
+        double b = Math.max(hi, 1);
+        double pad = 0.05 * Math.max(b - a, 1e-6);
+        plot.getDomainAxis().setRange(a - pad, b + pad);
+        IntervalMarker band = new IntervalMarker(a - pad, 1, ChartStyle.translucent(ChartStyle.LIMIT, 22));
+        plot.addDomainMarker(0, band, Layer.BACKGROUND);
+        plot.addDomainMarker(0, vline(1, "margin 1: the limit", ChartStyle.LIMIT, 3, true), Layer.FOREGROUND);
+        long below = Arrays.stream(v).filter(x -> x < 1).count();
+        JFreeChart c = ChartStyle.chart("Tightest limit: " + name, plot, subtitle,
+                samplesNote() + "; " + below + " below margin 1 (violated)");
+        c.removeLegend();
+        return java.util.Optional.of(new Figure("robust-tightest", "Tightest limit: " + name,
+                "The histogram of the margin with the smallest median, " + name + ", on a linear scale; samples left "
+                        + "of the line at 1 violate it.", c));
     }
 
     private static void bars(CategoryPlot plot, BarRenderer r) {
@@ -371,43 +418,42 @@ final class RobustCharts {
         List<JsonNode> rows = new ArrayList<>();
         j.path("violation").forEach(rows::add);
         JsonNode any = j.path("any_limit");
-        int n = rows.size() + (any.path("probability").isNumber() ? 1 : 0);
-        String[][] labels = new String[2][n];
         double top = 0;
-        int c = 0;
         int samples = j.path("samples_done").asInt(s == null ? 0 : s.size());
         for (JsonNode v : rows) {
-            String limit = ReportText.label(v.path("limit").asText("?"));
             double p = v.path("probability").asDouble(0) * 100;
             double se = v.path("standard_error").asDouble(0) * 100;
-            d.add(p, se, p0, limit);
             int k = v.path("violations").asInt(-1);
-            labels[0][c] = ReportText.sig(p, 3) + " ± " + ReportText.sig(se, 2) + " %" + (k >= 0 ? " (" + k + " of "
-                    + samples + ")" : "");
             double up = v.path("upper_95_rule_of_three").isNumber() && k == 0
                     ? v.path("upper_95_rule_of_three").asDouble() * 100 : Double.NaN;
+            // the figures go with the limit's name: a label at the bar's end would sit on the error bar
+            String limit = ReportText.label(v.path("limit").asText("?")) + ": " + (k == 0 && !Double.isNaN(up)
+                    ? "none of " + samples + ", < " + ReportText.sig(up, 2) + " %"
+                    : ReportText.sig(p, 3) + " ± " + ReportText.sig(se, 2) + " %" + (k >= 0 ? " (" + k + " of "
+                    + samples + ")" : ""));
+            d.add(p, se, p0, limit);
             d.add(Double.isNaN(up) ? null : (Number) up, (Number) 0.0, p1, limit);
-            labels[1][c] = Double.isNaN(up) ? null : "< " + ReportText.sig(up, 2) + " %";
             top = Math.max(top, Math.max(p + se, Double.isNaN(up) ? 0 : up));
-            c++;
         }
         if (any.path("probability").isNumber()) {
             double p = any.path("probability").asDouble() * 100;
             double se = any.path("standard_error").asDouble(0) * 100;
-            d.add(p, se, p0, "any limit");
-            labels[0][c] = ReportText.sig(p, 3) + " ± " + ReportText.sig(se, 2) + " %";
-            d.add((Number) null, (Number) 0.0, p1, "any limit");
-            top = Math.max(top, p + se);
+            double up = p == 0 && samples > 0 ? 300.0 / samples : Double.NaN;
+            String name = "any limit: " + (Double.isNaN(up) ? ReportText.sig(p, 3) + " ± " + ReportText.sig(se, 2) + " %"
+                    : "none of " + samples + ", < " + ReportText.sig(up, 2) + " %");
+            d.add(p, se, p0, name);
+            d.add(Double.isNaN(up) ? null : (Number) up, (Number) 0.0, p1, name);
+            top = Math.max(top, Math.max(p + se, Double.isNaN(up) ? 0 : up));
         }
         StatisticalBarRenderer r = new StatisticalBarRenderer();
         r.setErrorIndicatorPaint(ChartStyle.INK);
         r.setErrorIndicatorStroke(new BasicStroke(1.6f));
-        r.setDefaultItemLabelGenerator(new Labels(labels));
         CategoryAxis x = new CategoryAxis("Limit");
         NumberAxis y = new NumberAxis("Probability of violating the limit [%]");
-        y.setRange(0, top > 0 ? top * 1.45 : 1);
+        y.setRange(0, top > 0 ? top * 1.15 : 1);
         CategoryPlot plot = new CategoryPlot(d, x, y, r);
         bars(plot, r);
+        r.setDefaultItemLabelsVisible(false);
         JFreeChart chart = ChartStyle.chart("Probability of violating each limit", plot, subtitle, samplesNote());
         return new Figure("robust-violation", "Probability of violating each limit",
                 "The share of samples that violate each limit, with its binomial standard error as an error bar; "
