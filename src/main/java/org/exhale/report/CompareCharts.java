@@ -174,11 +174,21 @@ final class CompareCharts {
             }
         }
         if (unit == null) {
-            int dot = column.lastIndexOf('.');
-            int us = column.indexOf('_', Math.max(dot, 0));
-            if (us > 0) {
+            // the keys compare knows, longest first; an unknown column splits at its last underscore
+            for (String k : org.exhale.studies.StudyKey.names().stream()
+                    .sorted(Comparator.comparingInt(String::length).reversed()).toList()) {
+                if (column.equals(k) || column.startsWith(k + "_")) {
+                    key = k;
+                    unit = column.length() > k.length() ? column.substring(k.length() + 1).replace("_per_", "/") : "";
+                    break;
+                }
+            }
+        }
+        if (unit == null) {
+            int us = column.lastIndexOf('_');
+            if (us > Math.max(0, column.lastIndexOf('.'))) {
                 key = column.substring(0, us);
-                unit = column.substring(us + 1).replace("_per_", "/");
+                unit = column.substring(us + 1);
             } else {
                 unit = "";
             }

@@ -460,14 +460,14 @@ final class HtmlReport {
         }
     }
 
-    private static String optionHeader(String h) {
+    private String optionHeader(String h) {
         return switch (h) {
             case "duration_s" -> "Duration";
             case "total_with_cooldown_s" -> "With cool-down";
             case "lower_bound_s" -> "Lower bound";
             case "bound_ratio" -> "Plan / bound";
             case "smallest_margin_limit" -> "Tightest limit";
-            default -> h.contains(".") ? CompareCharts.axisLabel(h, null) : label(h);
+            default -> h.contains(".") ? CompareCharts.axisLabel(h, f.compare().map(c -> c.path("vary")).orElse(null)) : label(h);
         };
     }
 
