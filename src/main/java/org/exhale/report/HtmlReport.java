@@ -41,6 +41,7 @@ final class HtmlReport {
             figure svg{display:block;width:100%;height:auto}
             figcaption{color:var(--muted);font-size:.92rem;margin-top:6px}
             figcaption a{color:var(--accent)}
+            .wide{overflow-x:auto} td.why{min-width:28em}
             pre{background:var(--band);padding:10px;overflow:auto;font-size:.85rem}
             nav a{color:var(--accent);margin-right:14px}
             footer{color:var(--muted);font-size:.85rem;margin-top:40px}
@@ -75,12 +76,18 @@ final class HtmlReport {
                 .append("</code>: ").append(escape(kind())).append("</p>\n");
         f.summary().ifPresent(s -> summary(s, binding));
         f.plan().ifPresent(this::plan);
-        f.recipe().ifPresent(this::recipe);
+        if (f.robust().isEmpty()) {
+            f.recipe().ifPresent(this::recipe);
+        }
         f.fit().ifPresent(this::fit);
         if (f.compare().isPresent() || f.options().isPresent()) {
             compare();
         }
         f.robust().ifPresent(this::robust);
+        if (f.robust().isPresent()) {
+            // the recipe the samples were run with, after the study
+            f.recipe().ifPresent(this::recipe);
+        }
         cautions();
         if (!figures.isEmpty()) {
             b.append("<h2 id=\"charts\">Charts</h2>\n");
@@ -435,9 +442,15 @@ final class HtmlReport {
         f.options().ifPresent(this::optionsTable);
     }
 
+    /** Columns of options.csv left out of the page's table (they stay in the file); the reason joins the failing limit. */
+    private static final Set<String> OPTION_COLUMNS_LEFT_OUT = Set.of("total_with_cooldown_s", "bound_rigorous", "steps",
+            "infeasible_reason");
+
     private void optionsTable(CsvTable t) {
-        b.append("<h3>Ranked options</h3>\n<table>\n<tr>");
-        for (String h : t.header()) {
+        List<String> cols = t.header().stream().filter(h -> !OPTION_COLUMNS_LEFT_OUT.contains(h)).toList();
+        b.append("<h3>Ranked options</h3>\n<p>Ranked by planned duration, infeasible options last; every column is in "
+                + "<code>options.csv</code>.</p>\n<div class=\"wide\"><table>\n<tr>");
+        for (String h : cols) {
             b.append("<th>").append(escape(optionHeader(h))).append("</th>");
         }
         b.append("</tr>\n");
@@ -445,16 +458,19 @@ final class HtmlReport {
         for (int r = 0; r < shown; r++) {
             boolean feasible = !t.has("feasible") || "true".equalsIgnoreCase(t.text(r, "feasible"));
             b.append(r == 0 && feasible ? "<tr class=\"binding\">" : "<tr>");
-            for (String h : t.header()) {
+            for (String h : cols) {
                 String v = t.text(r, h);
+                if (h.equals("infeasible_limit") && t.has("infeasible_reason") && !t.text(r, "infeasible_reason").isEmpty()) {
+                    v = (v.isEmpty() ? "" : v + ": ") + t.text(r, "infeasible_reason");
+                }
                 boolean number = v.matches("[-+0-9.eE]+");
                 String shownText = number ? optionValue(h, v) : ("true".equals(v) ? "yes" : "false".equals(v) ? "no" : v);
-                String cls = h.equals("feasible") && !feasible ? "bad" : number ? "num" : null;
+                String cls = h.equals("feasible") && !feasible ? "bad" : number ? "num" : h.equals("infeasible_limit") ? "why" : null;
                 b.append(cls == null ? "<td>" : "<td class=\"" + cls + "\">").append(escape(shownText)).append("</td>");
             }
             b.append("</tr>\n");
         }
-        b.append("</table>\n");
+        b.append("</table></div>\n");
         if (shown < t.size()) {
             b.append("<p>").append(t.size() - shown).append(" more options in <code>options.csv</code>.</p>\n");
         }
@@ -467,6 +483,9 @@ final class HtmlReport {
             case "lower_bound_s" -> "Lower bound";
             case "bound_ratio" -> "Plan / bound";
             case "smallest_margin_limit" -> "Tightest limit";
+            case "infeasible_limit" -> "Why infeasible";
+            case "ceiling_headroom_K" -> "Ceiling headroom";
+            case "peak_pressure_Pa" -> "Peak pressure";
             default -> h.contains(".") ? CompareCharts.axisLabel(h, f.compare().map(c -> c.path("vary")).orElse(null)) : label(h);
         };
     }
@@ -590,7 +609,9 @@ final class HtmlReport {
                 b.append(" The quantile was not met.");
             }
             if (rp.path("note").isTextual()) {
-                b.append(" ").append(escape(rp.path("note").asText())).append('.');
+                String note = rp.path("note").asText();
+                b.append(" ").append(escape(note.isEmpty() ? note : Character.toUpperCase(note.charAt(0)) + note.substring(1)))
+                        .append('.');
             }
             b.append("</p>\n");
             JsonNode rounds = rp.path("rounds");

@@ -182,9 +182,11 @@ final class RobustCharts {
                     quantiles.add(name);
                     double x = e.getValue().asDouble() / 60;
                     // the median to the left of its line, the upper quantiles to the right
-                    plot.addDomainMarker(0, vline(x, name + " " + ReportText.sig(x, 4) + " min",
-                            k == 0 ? ChartStyle.INK : ChartStyle.LIMIT, k == 0 ? 1 : (k == 1 ? 3 : 2), k > 0),
-                            Layer.FOREGROUND);
+                    ValueMarker vm = vline(x, name + " " + ReportText.sig(x, 4) + " min",
+                            k == 0 ? ChartStyle.INK : ChartStyle.LIMIT, k == 0 ? 1 : (k == 1 ? 3 : 2), k > 0);
+                    // upper quantiles lie close together: their labels step down one line each
+                    vm.setLabelOffset(new RectangleInsets(6 + 22 * Math.max(0, k - 1), 4, 4, 4));
+                    plot.addDomainMarker(0, vm, Layer.FOREGROUND);
                     k++;
                 }
             }
