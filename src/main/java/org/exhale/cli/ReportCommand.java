@@ -15,12 +15,13 @@ import picocli.CommandLine.Parameters;
 @Command(name = "report", mixinStandardHelpOptions = true,
         header = "Render charts and a self-contained HTML report of an output folder.",
         description = {"Reads what the folder holds (summary.json and history.csv from simulate or plan, recipe.csv and "
-                + "plan.json from plan, fit.json, fit.csv and isoconversional.csv from fit) and writes DIR/report.html "
+                + "plan.json from plan, fit.json, fit.csv and isoconversional.csv from fit, compare.json and options.csv from "
+                + "compare, robust.json and samples.csv from robust) and writes DIR/report.html "
                 + "with the headline figures, margins, warnings, cautions and charts inline, and each chart as SVG and "
                 + "PNG in DIR/charts/. Charts whose inputs are absent are left out.",
                 "The page has no script and refers to no outside file or address: it opens offline."})
 final class ReportCommand implements Callable<Integer> {
-    @Parameters(index = "0", paramLabel = "DIR", description = "Output folder of exhale simulate, plan or fit.")
+    @Parameters(index = "0", paramLabel = "DIR", description = "Output folder of exhale simulate, plan, fit, compare or robust.")
     Path dir;
 
     @Option(names = {"-o", "--output"}, paramLabel = "FILE", description = "The page (default: DIR/report.html).")

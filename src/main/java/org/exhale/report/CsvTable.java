@@ -153,6 +153,20 @@ public final class CsvTable {
         if (s.isEmpty()) {
             return Double.NaN;
         }
+        // the sample writers spell the margin of a never-loaded limit "inf"
+        switch (s.toLowerCase(java.util.Locale.ROOT)) {
+            case "inf", "+inf", "infinity", "+infinity" -> {
+                return Double.POSITIVE_INFINITY;
+            }
+            case "-inf", "-infinity" -> {
+                return Double.NEGATIVE_INFINITY;
+            }
+            case "nan" -> {
+                return Double.NaN;
+            }
+            default -> {
+            }
+        }
         try {
             return Double.parseDouble(s);
         } catch (NumberFormatException e) {

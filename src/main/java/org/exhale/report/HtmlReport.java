@@ -41,6 +41,7 @@ final class HtmlReport {
             figure svg{display:block;width:100%;height:auto}
             figcaption{color:var(--muted);font-size:.92rem;margin-top:6px}
             figcaption a{color:var(--accent)}
+            .wide{overflow-x:auto} td.why{min-width:28em}
             pre{background:var(--band);padding:10px;overflow:auto;font-size:.85rem}
             nav a{color:var(--accent);margin-right:14px}
             footer{color:var(--muted);font-size:.85rem;margin-top:40px}
@@ -75,8 +76,18 @@ final class HtmlReport {
                 .append("</code>: ").append(escape(kind())).append("</p>\n");
         f.summary().ifPresent(s -> summary(s, binding));
         f.plan().ifPresent(this::plan);
-        f.recipe().ifPresent(this::recipe);
+        if (f.robust().isEmpty()) {
+            f.recipe().ifPresent(this::recipe);
+        }
         f.fit().ifPresent(this::fit);
+        if (f.compare().isPresent() || f.options().isPresent()) {
+            compare();
+        }
+        f.robust().ifPresent(this::robust);
+        if (f.robust().isPresent()) {
+            // the recipe the samples were run with, after the study
+            f.recipe().ifPresent(this::recipe);
+        }
         cautions();
         if (!figures.isEmpty()) {
             b.append("<h2 id=\"charts\">Charts</h2>\n");
@@ -104,7 +115,12 @@ final class HtmlReport {
 
     private String kind() {
         List<String> k = new ArrayList<>();
-        if (f.plan().isPresent() || f.recipe().isPresent()) {
+        if (f.compare().isPresent() || f.options().isPresent()) {
+            k.add("comparison of options");
+        }
+        if (f.robust().isPresent() || f.samples().isPresent()) {
+            k.add("Monte Carlo robustness of a recipe");
+        } else if (f.plan().isPresent() || f.recipe().isPresent()) {
             k.add("planned recipe");
         } else if (f.summary().isPresent()) {
             k.add("simulated bake");
@@ -389,6 +405,239 @@ final class HtmlReport {
         };
     }
 
+    // ---------------------------------------------------------------- compare
+
+    /** Rows of the ranked table shown in the page; the rest are in options.csv. */
+    static final int MAX_OPTION_ROWS = 300;
+
+    private void compare() {
+        b.append("<h2 id=\"compare\">Options compared</h2>\n");
+        JsonNode c = f.compare().orElse(null);
+        CompareCharts.CompareData d = CompareCharts.data(f);
+        if (c != null && c.path("best").isTextual() && !c.path("best").asText().isBlank()) {
+            b.append("<p class=\"verdict ok\">").append(escape(c.path("best").asText())).append("</p>\n");
+        }
+        if (!d.isEmpty()) {
+            long feasible = d.options().stream().filter(CompareCharts.Option::feasible).count();
+            long front = d.options().stream().filter(CompareCharts.Option::pareto).count();
+            if (feasible == 0) {
+                b.append("<p class=\"verdict bad\">✗ No option is feasible</p>\n");
+            }
+            b.append("<p>").append(feasible).append(" of ").append(d.options().size()).append(" options are feasible; ")
+                    .append(front).append(" are on the Pareto front of duration against the smallest margin. Varied: ")
+                    .append(escape(String.join(", ", d.labels()))).append(".</p>\n");
+        }
+        if (c != null) {
+            if (!c.path("complete").asBoolean(true)) {
+                b.append("<p class=\"bad\">Stopped early: ").append(escape(c.path("options_done").asText("?")))
+                        .append(" of ").append(escape(c.path("options_total").asText("?")))
+                        .append(" options were planned.</p>\n");
+            }
+            scalars(c, Set.of("best", "smallest_margin_note"));
+            if (c.path("smallest_margin_note").isTextual()) {
+                b.append("<p>Smallest margin: ").append(escape(c.path("smallest_margin_note").asText())).append(".</p>\n");
+            }
+            warnings(c.path("warnings"), "Warnings");
+        }
+        f.options().ifPresent(this::optionsTable);
+    }
+
+    /** Columns of options.csv left out of the page's table (they stay in the file); the reason joins the failing limit. */
+    private static final Set<String> OPTION_COLUMNS_LEFT_OUT = Set.of("total_with_cooldown_s", "bound_rigorous", "steps",
+            "infeasible_reason");
+
+    private void optionsTable(CsvTable t) {
+        List<String> cols = t.header().stream().filter(h -> !OPTION_COLUMNS_LEFT_OUT.contains(h)).toList();
+        b.append("<h3>Ranked options</h3>\n<p>Ranked by planned duration, infeasible options last; every column is in "
+                + "<code>options.csv</code>.</p>\n<div class=\"wide\"><table>\n<tr>");
+        for (String h : cols) {
+            b.append("<th>").append(escape(optionHeader(h))).append("</th>");
+        }
+        b.append("</tr>\n");
+        int shown = Math.min(t.size(), MAX_OPTION_ROWS);
+        for (int r = 0; r < shown; r++) {
+            boolean feasible = !t.has("feasible") || "true".equalsIgnoreCase(t.text(r, "feasible"));
+            b.append(r == 0 && feasible ? "<tr class=\"binding\">" : "<tr>");
+            for (String h : cols) {
+                String v = t.text(r, h);
+                if (h.equals("infeasible_limit") && t.has("infeasible_reason") && !t.text(r, "infeasible_reason").isEmpty()) {
+                    v = (v.isEmpty() ? "" : v + ": ") + t.text(r, "infeasible_reason");
+                }
+                boolean number = v.matches("[-+0-9.eE]+");
+                String shownText = number ? optionValue(h, v) : ("true".equals(v) ? "yes" : "false".equals(v) ? "no" : v);
+                String cls = h.equals("feasible") && !feasible ? "bad" : number ? "num" : h.equals("infeasible_limit") ? "why" : null;
+                b.append(cls == null ? "<td>" : "<td class=\"" + cls + "\">").append(escape(shownText)).append("</td>");
+            }
+            b.append("</tr>\n");
+        }
+        b.append("</table></div>\n");
+        if (shown < t.size()) {
+            b.append("<p>").append(t.size() - shown).append(" more options in <code>options.csv</code>.</p>\n");
+        }
+    }
+
+    private String optionHeader(String h) {
+        return switch (h) {
+            case "duration_s" -> "Duration";
+            case "total_with_cooldown_s" -> "With cool-down";
+            case "lower_bound_s" -> "Lower bound";
+            case "bound_ratio" -> "Plan / bound";
+            case "smallest_margin_limit" -> "Tightest limit";
+            case "infeasible_limit" -> "Why infeasible";
+            case "ceiling_headroom_K" -> "Ceiling headroom";
+            case "peak_pressure_Pa" -> "Peak pressure";
+            default -> h.contains(".") ? CompareCharts.axisLabel(h, f.compare().map(c -> c.path("vary")).orElse(null)) : label(h);
+        };
+    }
+
+    private static String optionValue(String h, String v) {
+        double x;
+        try {
+            x = Double.parseDouble(v);
+        } catch (NumberFormatException e) {
+            return v;
+        }
+        if (h.endsWith("_s")) {
+            return ReportText.minutes(x);
+        }
+        if (h.endsWith("_Pa")) {
+            return SiScale.of(Math.abs(x), "Pa").format(x);
+        }
+        if (h.endsWith("_K")) {
+            return ReportText.plain(x, 4) + " K";
+        }
+        return tidy(v);
+    }
+
+    // ---------------------------------------------------------------- robust
+
+    private void robust(JsonNode j) {
+        b.append("<h2 id=\"robust\">Robustness over the uncertain values</h2>\n");
+        JsonNode any = j.path("any_limit");
+        if (any.path("probability").isNumber()) {
+            double p = any.path("probability").asDouble();
+            b.append(p == 0 ? "<p class=\"verdict ok\">" : "<p class=\"verdict bad\">")
+                    .append(escape("Any limit violated in " + sig(p * 100, 3) + " ± "
+                            + sig(any.path("standard_error").asDouble(0) * 100, 2) + " % of samples")).append("</p>\n");
+        }
+        if (!j.path("complete").asBoolean(true)) {
+            b.append("<p class=\"bad\">Stopped early: ").append(escape(j.path("samples_done").asText("?")))
+                    .append(" of ").append(escape(j.path("samples").asText("?"))).append(" samples were run.</p>\n");
+        }
+        b.append("<table>\n");
+        row("Seed", j.path("seed").asText("n/a"));
+        row("Samples", j.path("samples_done").asText("?") + " of " + j.path("samples").asText("?"));
+        if (j.path("quantile").isNumber()) {
+            row("Quantile", sig(j.path("quantile").asDouble(), 4));
+        }
+        row("Recipe", j.path("recipe").asText(""));
+        if (j.path("threads").isNumber()) {
+            row("Threads", j.path("threads").asText());
+        }
+        if (j.path("wall_time_s").isNumber()) {
+            row("Wall time", value("wall_time_s", j.path("wall_time_s")));
+        }
+        b.append("</table>\n");
+        JsonNode t = j.path("time_to_target");
+        if (t.isObject()) {
+            b.append("<h3>Time to the residue target</h3>\n<table>\n");
+            for (Iterator<Map.Entry<String, JsonNode>> it = t.fields(); it.hasNext(); ) {
+                Map.Entry<String, JsonNode> e = it.next();
+                if (e.getKey().equals("note")) {
+                    continue;
+                }
+                String k = e.getKey().matches("p[0-9.]+_s") ? "P" + e.getKey().substring(1, e.getKey().length() - 2)
+                        : label(e.getKey());
+                b.append("<tr><th>").append(escape(k)).append("</th><td class=\"num\">")
+                        .append(escape(value(e.getKey(), e.getValue()))).append("</td></tr>\n");
+            }
+            b.append("</table>\n");
+            if (t.path("note").isTextual()) {
+                b.append("<p>").append(escape(t.path("note").asText())).append(".</p>\n");
+            }
+        }
+        JsonNode v = j.path("violation");
+        if (v.isArray() && v.size() > 0) {
+            b.append("<h3>Probability of violating each limit</h3>\n<table>\n<tr><th>Limit</th><th>P(violate)</th>"
+                    + "<th>± s.e.</th><th>Violations</th><th>95 % upper bound if none</th><th>Median margin</th>"
+                    + "<th>Margin at 1 − quantile</th></tr>\n");
+            for (JsonNode x : v) {
+                boolean head = x.has("headroom_K_median");
+                String med = head ? num(x.path("headroom_K_median"), "K") + " headroom" : ratio(x.path("margin_median"));
+                String low = head ? num(x.path("headroom_K_at_1_minus_quantile"), "K") + " headroom"
+                        : ratio(x.path("margin_at_1_minus_quantile"));
+                int k = x.path("violations").asInt(0);
+                b.append("<tr><td>").append(escape(x.path("limit").asText())).append("</td>")
+                        .append(k > 0 ? "<td class=\"num bad\">" : "<td class=\"num\">")
+                        .append(escape(numText(x.path("probability"), 3))).append("</td><td class=\"num\">")
+                        .append(escape(numText(x.path("standard_error"), 2))).append("</td><td class=\"num\">")
+                        .append(escape(x.path("violations").asText(""))).append("</td><td class=\"num\">")
+                        .append(escape(x.path("upper_95_rule_of_three").isNumber() && k == 0
+                                ? "< " + sig(x.path("upper_95_rule_of_three").asDouble(), 2) : "")).append("</td><td class=\"num\">")
+                        .append(escape(med)).append("</td><td class=\"num\">").append(escape(low)).append("</td></tr>\n");
+            }
+            b.append("</table>\n");
+        }
+        JsonNode sens = j.path("sensitivity");
+        if (sens.isArray() && sens.size() > 0) {
+            b.append("<h3>Sensitivity ranking</h3>\n<table>\n<tr><th>Rank</th><th>Uncertain value</th>"
+                    + "<th>ρ with the smallest margin</th><th>ρ with the time to target</th></tr>\n");
+            for (JsonNode x : sens) {
+                b.append("<tr><td class=\"num\">").append(escape(x.path("rank").asText())).append("</td><td>")
+                        .append(escape(x.path("parameter").asText())).append("</td><td class=\"num\">")
+                        .append(escape(numText(x.path("spearman_smallest_margin"), 3))).append("</td><td class=\"num\">")
+                        .append(escape(numText(x.path("spearman_time_to_target"), 3))).append("</td></tr>\n");
+            }
+            b.append("</table>\n");
+        }
+        if (j.path("parameters").isArray() && j.path("parameters").size() > 0) {
+            b.append("<h3>Uncertain values</h3>\n");
+            objectTable(j.path("parameters"));
+        }
+        JsonNode rp = j.path("robust_plan");
+        if (rp.isObject()) {
+            b.append("<h3>Robust plan</h3>\n");
+            b.append(rp.path("met").asBoolean(true) ? "<p>" : "<p class=\"bad\">");
+            if (rp.path("nominal_duration_s").isNumber() && rp.path("robust_duration_s").isNumber()) {
+                b.append(escape("The robust plan takes " + value("robust_duration_s", rp.path("robust_duration_s"))
+                        + " against " + value("nominal_duration_s", rp.path("nominal_duration_s"))
+                        + " for the nominal plan" + (rp.path("cost_s").isNumber() ? ", a cost of "
+                        + value("cost_s", rp.path("cost_s")) + (rp.path("cost_percent").isNumber()
+                        ? " (" + sig(rp.path("cost_percent").asDouble(), 3) + " %)" : "") : "") + "."));
+            }
+            if (!rp.path("met").asBoolean(true)) {
+                b.append(" The quantile was not met.");
+            }
+            if (rp.path("note").isTextual()) {
+                String note = rp.path("note").asText();
+                b.append(" ").append(escape(note.isEmpty() ? note : Character.toUpperCase(note.charAt(0)) + note.substring(1)))
+                        .append('.');
+            }
+            b.append("</p>\n");
+            JsonNode rounds = rp.path("rounds");
+            if (rounds.isArray() && rounds.size() > 0) {
+                b.append("<table>\n<tr><th>Round</th><th>Tightened</th><th>Feasible</th><th>Duration</th>"
+                        + "<th>Plan / bound</th></tr>\n");
+                for (JsonNode r : rounds) {
+                    List<String> tight = new ArrayList<>();
+                    r.path("tightened").forEach(x -> tight.add(x.isTextual() ? x.asText() : x.toString()));
+                    b.append("<tr><td class=\"num\">").append(escape(r.path("round").asText())).append("</td><td>")
+                            .append(escape(tight.isEmpty() ? "none" : String.join(", ", tight))).append("</td><td>")
+                            .append(escape(value("feasible", r.path("feasible")))).append("</td><td class=\"num\">")
+                            .append(escape(value("duration_s", r.path("duration_s")))).append("</td><td class=\"num\">")
+                            .append(escape(numText(r.path("bound_ratio"), 4))).append("</td></tr>\n");
+                }
+                b.append("</table>\n");
+            }
+        }
+        warnings(j.path("warnings"), "Warnings");
+        notes(j.path("notes"), "How the samples were drawn and read");
+    }
+
+    private static String ratio(JsonNode v) {
+        return v.isNumber() ? "×" + sig(v.asDouble(), 4) : "never loaded";
+    }
+
     // ---------------------------------------------------------------- fit
 
     private void fit(JsonNode j) {
@@ -500,7 +749,8 @@ final class HtmlReport {
 
     private void cautions() {
         List<String> list = new ArrayList<>();
-        for (JsonNode src : new JsonNode[]{f.summary().orElse(null), f.plan().orElse(null), f.fit().orElse(null)}) {
+        for (JsonNode src : new JsonNode[]{f.summary().orElse(null), f.plan().orElse(null), f.fit().orElse(null),
+                f.compare().orElse(null), f.robust().orElse(null)}) {
             if (src != null) {
                 for (JsonNode c : src.path("cautions")) {
                     if (!list.contains(c.asText())) {

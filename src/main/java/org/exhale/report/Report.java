@@ -56,6 +56,12 @@ public record Report(String html, List<Figure> figures, Map<String, String> svg,
         if (folder.fit().isPresent() || folder.fitTable().isPresent() || folder.isoconversional().isPresent()) {
             out.addAll(new FitCharts(folder).all());
         }
+        if (folder.compare().isPresent() || folder.options().isPresent()) {
+            out.addAll(new CompareCharts(folder).all());
+        }
+        if (folder.robust().isPresent() || folder.samples().isPresent()) {
+            out.addAll(new RobustCharts(folder).all());
+        }
         return out;
     }
 

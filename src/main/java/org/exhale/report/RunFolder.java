@@ -27,10 +27,16 @@ import com.fasterxml.jackson.databind.ObjectMapper;
  * @param fitTable   fit.csv (fit)
  * @param isoconversional isoconversional.csv (fit)
  * @param kinetics   kinetics.yaml as text (fit)
+ * @param compare    compare.json (compare)
+ * @param options    options.csv, the ranked options (compare)
+ * @param robust     robust.json (robust)
+ * @param samples    samples.csv, one row per Monte Carlo sample (robust)
  */
 public record RunFolder(Path dir, Optional<JsonNode> summary, Optional<CsvTable> history, Optional<CsvTable> recipe,
                         Optional<JsonNode> plan, Optional<JsonNode> fit, Optional<CsvTable> fitTable,
-                        Optional<CsvTable> isoconversional, Optional<String> kinetics) {
+                        Optional<CsvTable> isoconversional, Optional<String> kinetics,
+                        Optional<JsonNode> compare, Optional<CsvTable> options,
+                        Optional<JsonNode> robust, Optional<CsvTable> samples) {
 
     private static final ObjectMapper MAPPER = new ObjectMapper();
     /** kinetics.yaml is shown verbatim; a larger one is not ours. */
@@ -44,10 +50,13 @@ public record RunFolder(Path dir, Optional<JsonNode> summary, Optional<CsvTable>
         }
         RunFolder f = new RunFolder(dir, json(dir, "summary.json"), csv(dir, "history.csv"), csv(dir, "recipe.csv"),
                 json(dir, "plan.json"), json(dir, "fit.json"), csv(dir, "fit.csv"), csv(dir, "isoconversional.csv"),
-                text(dir, "kinetics.yaml"));
-        if (f.summary.isEmpty() && f.fit.isEmpty()) {
+                text(dir, "kinetics.yaml"), json(dir, "compare.json"), csv(dir, "options.csv"),
+                json(dir, "robust.json"), csv(dir, "samples.csv"));
+        if (f.summary.isEmpty() && f.fit.isEmpty() && f.compare.isEmpty() && f.options.isEmpty() && f.robust.isEmpty()
+                && f.samples.isEmpty()) {
             throw new InputException(ErrorKind.MISSING_KEY, dir.toString(), "", 0,
-                    "holds neither summary.json nor fit.json; expected the output folder of exhale simulate, plan or fit");
+                    "holds none of summary.json, fit.json, compare.json, options.csv, robust.json, samples.csv; "
+                            + "expected the output folder of exhale simulate, plan, fit, compare or robust");
         }
         if (f.history.isPresent() && !f.history.get().has("time_s")) {
             throw new InputException(ErrorKind.MISSING_KEY, f.history.get().file(), "header", 1,
@@ -99,9 +108,14 @@ public record RunFolder(Path dir, Optional<JsonNode> summary, Optional<CsvTable>
         }
     }
 
-    /** The case name from summary.json, else the folder's name. */
+    /** The case name from summary.json (else the case file named in compare.json or robust.json), else the folder's name. */
     public String caseName() {
         String n = summary.map(s -> s.path("case").asText("")).orElse("");
+        for (Optional<JsonNode> j : java.util.List.of(compare, robust)) {
+            if (n.isBlank()) {
+                n = j.map(s -> s.path("case").isValueNode() ? s.path("case").asText("") : "").orElse("");
+            }
+        }
         if (n.isBlank()) {
             Path fn = dir.toAbsolutePath().normalize().getFileName();
             n = fn == null ? "" : fn.toString();
