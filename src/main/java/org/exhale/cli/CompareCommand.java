@@ -138,7 +138,7 @@ final class CompareCommand implements Callable<Integer> {
         List<Compare.Option> done = all.stream().filter(o -> o != null).toList();
         List<Compare.Option> ranked = Compare.rank(done);
         boolean[] pareto = Compare.pareto(ranked);
-        OutputFolder out = new OutputFolder(dir, true);
+        OutputFolder out = new OutputFolder(dir, true).owns("recipes", "report.html", "charts");
         out.put("options.csv", OptionsCsvWriter.write(vary, ranked, pareto));
         for (Compare.Option o : done) {
             if (o.feasible()) {

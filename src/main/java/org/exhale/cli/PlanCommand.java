@@ -65,7 +65,7 @@ final class PlanCommand implements Callable<Integer> {
                     "planning needs the start temperature: give 'recipe: {start: 150 C, steps: [...]}'");
         }
         Path dir = output != null ? output : Path.of("out", SimulateCommand.defaultOutput(casePath).getFileName() + "-plan");
-        OutputFolder out = new OutputFolder(dir, common.force);
+        OutputFolder out = new OutputFolder(dir, common.force).owns("recipe.csv", "recipe.yaml", "history.csv", "summary.json", "report.html", "charts");
         out.checkWritable();
         long t0 = System.nanoTime();
         PlanResult plan = Planner.plan(cf.bake(), cf.tool());

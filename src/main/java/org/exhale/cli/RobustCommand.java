@@ -192,7 +192,7 @@ final class RobustCommand implements Callable<Integer> {
                          int nThreads, List<MonteCarlo.Outcome> out, Recipe recipe, RobustStudy.RobustPlan rp,
                          boolean complete, double seconds) {
         RobustStudy.Summary sum = RobustStudy.summarize(ps, limits, out, quantile);
-        OutputFolder folder = new OutputFolder(dir, true);
+        OutputFolder folder = new OutputFolder(dir, true).owns("recipe.csv", "recipe.yaml", "report.html", "charts");
         folder.put("samples.csv", SamplesCsvWriter.write(ps, limits, out));
         folder.put("recipe.yaml", RecipeCsvWriter.yaml(recipe));
         folder.put("recipe.csv", RecipeCsvWriter.csv(recipe));

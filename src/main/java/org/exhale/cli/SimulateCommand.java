@@ -55,7 +55,7 @@ final class SimulateCommand implements Callable<Integer> {
             throw new InputException(ErrorKind.MISSING_KEY, casePath.toString(), "recipe", 0,
                     "the case has no recipe to simulate (use 'exhale plan' to make one)");
         }
-        OutputFolder out = new OutputFolder(output != null ? output : defaultOutput(casePath), common.force);
+        OutputFolder out = new OutputFolder(output != null ? output : defaultOutput(casePath), common.force).owns("history.csv", "summary.json", "report.html", "charts");
         out.checkWritable();
         BakeResult r = BakeSimulator.simulate(cf.bake(), SimulationSettings.defaults().withSampleInterval(interval));
         List<String> warnings = new ArrayList<>(cf.warnings());

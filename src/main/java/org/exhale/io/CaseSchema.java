@@ -142,9 +142,12 @@ public final class CaseSchema {
         if (e.types.contains(SchemaRecorder.Type.QUANTITY)) {
             UnitKind kind = e.kind;
             List<String> units = new ArrayList<>(kind.symbols());
+            if (e.unitRequired) {
+                units.remove("");
+            }
             String alternatives = String.join("|", units.stream().filter(u -> !u.isEmpty())
                     .map(CaseSchema::escape).toList());
-            boolean bare = units.contains("");
+            boolean bare = units.contains("") && !e.unitRequired;
             String pattern = "^\\s*" + NUMBER + "\\s*" + (alternatives.isEmpty() ? "" : "(?:" + alternatives + ")"
                     + (bare ? "?" : "")) + "\\s*$";
             if (bare) {

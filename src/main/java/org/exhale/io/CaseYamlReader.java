@@ -444,7 +444,7 @@ public final class CaseYamlReader {
 
     private Limits limits(YamlNode l) {
         double ceiling = l.requiredQuantity("ceiling", UnitKind.TEMPERATURE, C0 + 20, C0 + 1500, "a temperature in [20, 1500] C");
-        double residue = l.quantity("residue", UnitKind.FRACTION, Limits.DEFAULT_RESIDUE, 1e-9, 0.5, "a fraction in (0, 50] %");
+        double residue = explicitFraction(l, "residue", Limits.DEFAULT_RESIDUE, 0.5, "a residue such as 0.5 %");
         if (!l.has("residue")) {
             defaults.add("limits.residue = 0.5 %");
         }
@@ -463,6 +463,23 @@ public final class CaseYamlReader {
         l.finish();
         ThermalDose fd = dose;
         return build(l, () -> new Limits(ceiling, residue, pmax, fd, sf, dmax));
+    }
+
+    /**
+     * A fraction that must carry '%' or 'ppm': a bare 0.5 could mean 0.5 % or 50 %, and for a residue
+     * target or an exhaust limit the difference matters.
+     */
+    private static double explicitFraction(YamlNode n, String key, double fallback, double hi, String example) {
+        if (!n.has(key)) {
+            return fallback;
+        }
+        n.get(key).unitRequired();
+        String text = n.get(key).text().trim();
+        if (!(text.endsWith("%") || text.endsWith("ppm"))) {
+            throw n.get(key).error(ErrorKind.BAD_UNIT, "'" + text + "' has no unit; write it with % or ppm, e.g. " + example
+                    + " (a bare number would be ambiguous)");
+        }
+        return n.quantity(key, UnitKind.FRACTION, fallback, 1e-12, hi, example);
     }
 
     // ---------------------------------------------------------------- recipe and tool
@@ -545,14 +562,14 @@ public final class CaseYamlReader {
         double limit = Double.NaN;
         String label = "";
         if (c.has("limit")) {
-            limit = c.quantity("limit", UnitKind.FRACTION, Double.NaN, 1e-12, 0.999, "a concentration such as 1000 ppm");
+            limit = explicitFraction(c, "limit", Double.NaN, 0.999, "a concentration such as 1000 ppm");
             label = c.string("limit").trim();
             if (c.has("lel")) {
                 throw c.get("lel").error(ErrorKind.INCONSISTENT, "give either 'limit' or 'lel' with 'lel_fraction', not both");
             }
         } else if (c.has("lel")) {
-            double lel = c.quantity("lel", UnitKind.FRACTION, Double.NaN, 1e-6, 0.999, "a lower explosive limit such as 2 %");
-            double frac = c.quantity("lel_fraction", UnitKind.FRACTION, 0.25, 1e-6, 1, "a fraction of the LEL such as 25 %");
+            double lel = explicitFraction(c, "lel", Double.NaN, 0.999, "a lower explosive limit such as 2 %");
+            double frac = explicitFraction(c, "lel_fraction", 0.25, 1, "a fraction of the LEL such as 25 %");
             if (!c.has("lel_fraction")) {
                 defaults.add("chamber.lel_fraction = 25 %");
             }

@@ -20,6 +20,7 @@ public final class OutputFolder {
     private final Path dir;
     private final boolean force;
     private final Map<String, byte[]> files = new LinkedHashMap<>();
+    private final java.util.Set<String> owned = new java.util.LinkedHashSet<>();
 
     public OutputFolder(Path dir, boolean force) {
         this.dir = dir;
@@ -47,12 +48,43 @@ public final class OutputFolder {
         }
     }
 
+    /**
+     * Names (files or folders) this command writes in some runs: whichever of them this run does not
+     * write are removed at commit, so that a reused folder never mixes a new result with an old one
+     * (an infeasible plan beside the previous plan's recipe, for instance).
+     */
+    public OutputFolder owns(String... names) {
+        owned.addAll(java.util.List.of(names));
+        return this;
+    }
+
     public void put(String name, String content) {
         files.put(name, content.getBytes(StandardCharsets.UTF_8));
     }
 
     public void put(String name, byte[] content) {
         files.put(name, content.clone());
+    }
+
+    /** Removes what lies at {@code rel} unless this run wrote it (folders: their files this run did not write). */
+    private void prune(Path p, String rel) throws IOException {
+        if (!Files.exists(p, java.nio.file.LinkOption.NOFOLLOW_LINKS) || files.containsKey(rel)) {
+            return;
+        }
+        if (Files.isDirectory(p, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            try (java.util.stream.Stream<Path> s = Files.list(p)) {
+                for (Path c : (Iterable<Path>) s::iterator) {
+                    prune(c, rel + "/" + c.getFileName());
+                }
+            }
+            try (java.util.stream.Stream<Path> s = Files.list(p)) {
+                if (s.findAny().isEmpty()) {
+                    Files.delete(p);
+                }
+            }
+            return;
+        }
+        Files.delete(p);
     }
 
     /** Temporary files are created owner-only; results are ordinary files readable by everyone (rw-r--r--). */
@@ -84,6 +116,9 @@ public final class OutputFolder {
                 } finally {
                     Files.deleteIfExists(tmp);
                 }
+            }
+            for (String name : owned) {
+                prune(dir.resolve(name), name);
             }
         } catch (IOException e) {
             throw new InputException(ErrorKind.OUTPUT, dir.toString(), "", 0, "cannot write: " + e.getMessage());

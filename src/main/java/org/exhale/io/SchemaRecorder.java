@@ -26,6 +26,8 @@ public final class SchemaRecorder {
         String range = "";
         boolean required;
         boolean optional;
+        /** A fraction that must carry '%' or 'ppm' (no bare number). */
+        boolean unitRequired;
         int parentRuns;
         int requiredRuns;
 

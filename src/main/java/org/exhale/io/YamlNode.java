@@ -124,7 +124,12 @@ public final class YamlNode {
             recorder.optional(join(path, key));
         }
         NodeTuple t = entries.get(key);
-        return t != null && !isNull(t.getValueNode());
+        if (t != null && isNull(t.getValueNode())) {
+            // an empty value must never quietly mean "use the default" (that could switch a limit off)
+            throw new InputException(ErrorKind.MISSING_KEY, file, join(path, key), line(t.getKeyNode()),
+                    "key '" + key + "' has no value; give one, or remove the key to use the default");
+        }
+        return t != null;
     }
 
     private static boolean isNull(Node n) {
@@ -214,6 +219,13 @@ public final class YamlNode {
             recorder.type(path, SchemaRecorder.Type.TEXT);
         }
         return s.getValue();
+    }
+
+    /** Records that this scalar must carry a unit even where its kind would allow a bare number. */
+    void unitRequired() {
+        if (recorder != null) {
+            recorder.at(path).unitRequired = true;
+        }
     }
 
     /** Marks this mapping's keys as names chosen by the user (component names), not fixed keys. */

@@ -62,12 +62,15 @@ final class Binding {
             } else if (step instanceof Step.Ramp r && r.targetK() < s.startK()) {
                 label = i > last ? "cool-down" : "max_ramp_down";
             } else if (step instanceof Step.Hold && i == last) {
-                label = s.endK() >= bake.limits().ceilingK() - bake.wafer().spreadK() - tool.setpointStepK() - 1e-9
+                var dose = proof.margin("thermal_dose");
+                label = dose != null && dose.margin() < NEAR ? "residue; thermal_dose"
+                        : s.endK() >= bake.limits().ceilingK() - bake.wafer().spreadK() - tool.setpointStepK() - 1e-9
                         ? "ceiling; residue" : "residue";
             } else if (s.endK() >= bake.limits().ceilingK() - bake.wafer().spreadK() - tool.setpointStepK() - 1e-9) {
                 label = "ceiling";
             } else {
-                label = bestName == null ? "none" : bestName + " (margin " + String.format(java.util.Locale.ROOT, "%.3g", best) + ")";
+                label = bestName == null || !Double.isFinite(best) ? "none"
+                        : "none (nearest: " + bestName + " " + String.format(java.util.Locale.ROOT, "%.3g", best) + ")";
             }
             out.add(label);
         }

@@ -81,6 +81,9 @@ public final class LowerBound {
             // steps of at most 5e-4 in conversion (RK4 then errs by far less than the planner's tolerances); at most
             // 10 s while the cap still moves, 60 s once it is steady, and long steps only while nothing converts
             double maxDt = t < cap.settledS() ? 10 : 60;
+            if (u < 3 * target) {
+                maxDt = Math.min(maxDt, 1);
+            }
             double dt = fastest > 1e-12 ? Math.min(Math.max(5e-4 / fastest, 0.05), maxDt) : (t < cap.settledS() ? 10 : 1e4);
             step(b, r1, 0.5 * dt, tmp);
             rates(limits, a0, tmp, t + 0.5 * dt, cap, offsets, startK, withLimits, r2, guess);
@@ -103,7 +106,9 @@ public final class LowerBound {
                         which = j;
                     }
                 }
-                return new double[]{t + dt * (u - target) / (u - uNext), which};
+                // the residue is convex in time, so a chord would put the crossing late; the start of the step is
+                // a safe (early) bound, and steps are short near the end (see below)
+                return new double[]{t, which};
             }
             b = next;
             u = uNext;

@@ -54,6 +54,8 @@ public final class Planner {
     private final SimulationSettings search;
     private int evaluations;
     private final List<String> notes = new ArrayList<>();
+    /** The last failed proof, for the diagnosis. */
+    private BakeResult lastProof;
 
     private Planner(BakeCase bake, Tool tool) {
         this.bake = bake;
@@ -120,6 +122,10 @@ public final class Planner {
                     }
                     Shape stretched = slowed(rider, f);
                     Eval se = evaluate(stretched);
+                    if (!se.feasible()) {
+                        notes.add("rider seed stretched " + f + "x still violates " + se.worst
+                                + String.format(java.util.Locale.ROOT, " (margin %.3g)", se.minMargin));
+                    }
                     if (se.feasible()) {
                         best = stretched;
                         bestEval = se;
@@ -172,37 +178,53 @@ public final class Planner {
         }
         // 4. round and prove
         for (int backoff = 0; backoff <= 20; backoff++) {
+            if (backoff > 0 && best.durations.length == 1 && lastProof != null
+                    && lastProof.violated().stream().noneMatch(m -> m.limit().equals("residue"))) {
+                break;   // slowing "every step after the first" cannot change a single ramp
+            }
             Shape shifted = slowed(best, 1 + 0.04 * backoff);
             Eval e = evaluate(shifted);
             if (Double.isNaN(e.timeToTargetS)) {
                 continue;
             }
             Recipe recipe = rounded(shifted, e.timeToTargetS);
-            BakeResult proof = BakeSimulator.simulate(bake.withRecipe(recipe), SimulationSettings.defaults().withSampleInterval(10));
+            // rounding the setpoints down delays the target: find when the rounded recipe reaches it
+            Recipe longHold = extendFinalHold(recipe, LONG_HOLD_S);
+            double txRounded = BakeSimulator.simulate(bake.withRecipe(longHold), search).timeToTargetS();
             evaluations++;
-            double holdEnd = holdEnd(recipe);
-            if (proof.feasible()) {
-                if (backoff > 0) {
-                    notes.add("ramps after the first slowed by " + Math.round(4 * backoff) + " % to keep every limit after "
-                            + "rounding and in the proof's gas regime");
-                }
-                return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
-                        Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null);
+            if (!Double.isNaN(txRounded) && txRounded > e.timeToTargetS) {
+                recipe = rounded(shifted, txRounded);
             }
-            // residue only: extend the hold
-            if (proof.violated().stream().allMatch(m -> m.limit().equals("residue"))) {
-                for (int ext = 1; ext <= 10; ext++) {
-                    Recipe longer = extendFinalHold(recipe, ext * Math.max(60, 0.01 * holdEnd));
-                    BakeResult p2 = BakeSimulator.simulate(bake.withRecipe(longer), SimulationSettings.defaults().withSampleInterval(10));
-                    evaluations++;
-                    if (p2.feasible()) {
-                        return new PlanResult(longer, p2, holdEnd(longer), longer.durationS(), bound, rigorous, true,
-                                Binding.perStep(bake, tool, longer, p2), evaluations, notes, null);
+            if (recipe.steps().size() > tool.maxSteps()) {
+                return infeasible(bound, rigorous, "max_steps", "the recipe needs " + recipe.steps().size()
+                        + " steps (ramps, the final hold" + (tool.hasUnload() ? " and the cool-down" : "") + ") but the tool takes "
+                        + tool.maxSteps(), "allow more steps" + (tool.hasUnload() ? " or drop the unload cool-down" : ""));
+            }
+            for (int ext = 0; ext <= 10; ext++) {
+                BakeResult proof = BakeSimulator.simulate(bake.withRecipe(recipe), SimulationSettings.defaults().withSampleInterval(10));
+                evaluations++;
+                double holdEnd = holdEnd(recipe);
+                // the residue target must be met at the end of the final hold, not during the cool-down
+                boolean residueLate = Double.isNaN(proof.timeToTargetS()) || proof.timeToTargetS() > holdEnd + 1e-6;
+                List<Margin> others = proof.violated().stream().filter(m -> !m.limit().equals("residue")).toList();
+                if (others.isEmpty() && !residueLate) {
+                    if (backoff > 0) {
+                        notes.add("ramps after the first slowed by " + Math.round(4 * backoff) + " % to keep every limit after "
+                                + "rounding and in the proof's gas regime");
                     }
-                    if (!p2.violated().stream().allMatch(m -> m.limit().equals("residue"))) {
-                        break;
+                    if (ext > 0) {
+                        notes.add("final hold lengthened " + ext + " time(s) so the target is met at its end");
                     }
+                    return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
+                            Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null);
                 }
+                lastProof = proof;
+                if (!others.isEmpty()) {
+                    notes.add("the rounded recipe failed its proof: " + others.stream()
+                            .map(m -> m.limit() + String.format(java.util.Locale.ROOT, " %.3g", m.margin())).toList());
+                    break;
+                }
+                recipe = extendFinalHold(recipe, Math.max(Math.max(tool.timeStepS(), 1), 0.002 * holdEnd));
             }
         }
         return diagnose(bound, rigorous, bestEval);
@@ -225,6 +247,11 @@ public final class Planner {
     }
 
     private Recipe toRecipe(Shape s, double holdS) {
+        return toRecipe(s, holdS, true);
+    }
+
+    /** The recipe of a shape with a final hold, and the cool-down when the tool unloads and {@code coolDown}. */
+    private Recipe toRecipe(Shape s, double holdS, boolean coolDown) {
         List<Step> steps = new ArrayList<>();
         double t = startK;
         for (int i = 0; i < s.temps.length; i++) {
@@ -239,7 +266,11 @@ public final class Planner {
                 t = target;
             }
         }
-        steps.add(new Step.Hold(Math.max(holdS, tool.minStepS())));
+        steps.add(new Step.Hold(Math.max(holdS, Math.max(tool.minStepS(), 1))));
+        if (coolDown && tool.hasUnload() && tool.unloadK() < t) {
+            // the cool-down belongs to the bake: its thermal dose and stresses count in the search too
+            steps.add(new Step.Ramp(tool.unloadK(), tool.maxRampDownKPerS()));
+        }
         return new Recipe(startK, steps);
     }
 
@@ -271,18 +302,27 @@ public final class Planner {
         BakeResult res = BakeSimulator.simulate(bake.withRecipe(r), search);
         evaluations++;
         double tx = res.timeToTargetS();
-        double holdStart = r.durationS() - lastHoldDuration(r);
+        double holdEnd = holdEnd(r);
+        // the tool's shortest step applies to the final hold too, so the hold ends no earlier than that
+        double holdStart = holdEnd - lastHoldDuration(r) + Math.max(tool.minStepS(), Math.max(tool.timeStepS(), 1));
+        List<Margin> margins = res.margins();
+        if (bake.limits().dose() != null && !Double.isNaN(tx)) {
+            // the dose depends on how long the hold really lasts and on the cool-down after it: simulate the
+            // recipe again with the final hold ending where the target is reached
+            double end = Math.max(tx, holdStart);
+            Recipe exact = toRecipe(s, end - (holdEnd - lastHoldDuration(r)));
+            margins = BakeSimulator.simulate(bake.withRecipe(exact), search).margins();
+            evaluations++;
+        }
         double min = Double.POSITIVE_INFINITY;
         String worst = "";
-        for (Margin m : res.margins()) {
+        for (Margin m : margins) {
             double v;
             if (m.limit().equals("residue")) {
                 continue;
             }
             if (m.headroom()) {
                 v = m.margin() >= 0 ? Double.POSITIVE_INFINITY : 1 + m.margin() / 10;
-            } else if (m.limit().equals("thermal_dose") && !Double.isNaN(tx)) {
-                v = m.allowed() / doseAt(res, r, Math.max(tx, holdStart));
             } else {
                 v = m.margin();
             }
@@ -303,18 +343,7 @@ public final class Planner {
     }
 
     private static double lastHoldDuration(Recipe r) {
-        Step last = r.steps().get(r.steps().size() - 1);
-        return last instanceof Step.Hold h ? h.durationS() : 0;
-    }
-
-    /** Dose accumulated by time t at the hottest corner, assuming the final hold is isothermal after t. */
-    private double doseAt(BakeResult res, Recipe r, double t) {
-        CornerResult hot = res.hottest();
-        double holdT = r.endK() + hot.offsetK();
-        var dose = bake.limits().dose();
-        double rate = Math.exp(-dose.activationEnergyJPerMol() / org.exhale.PhysicalConstants.GAS_CONSTANT
-                * (1 / holdT - 1 / dose.referenceK()));
-        return hot.thermalDoseS() - (r.durationS() - t) * rate;
+        return ((Step.Hold) r.steps().get(lastHoldIndex(r))).durationS();
     }
 
     // ------------------------------------------------------------------ seeds
@@ -358,7 +387,7 @@ public final class Planner {
         int ramps = Math.max(1, tool.maxSteps() - 2 - (tool.hasUnload() ? 1 : 0));
         Shape last = null;
         for (double tol = 0.5; tol <= 128; tol *= 2) {
-            Shape s = closedLoop(limits, ramps + 1, tol);
+            Shape s = closedLoop(limits, ramps, tol);
             if (s == null) {
                 break;
             }
@@ -370,7 +399,8 @@ public final class Planner {
         if (last == null) {
             return null;
         }
-        // the budget ran out below the cap: finish with one ramp to it at a tenth of the fastest rate
+        // the budget ran out below the cap: one more ramp to the cap at a tenth of the fastest rate (the
+        // closed loop was given one ramp less than the tool allows, so this still fits)
         double[] temps = java.util.Arrays.copyOf(last.temps, last.temps.length + 1);
         double[] durations = java.util.Arrays.copyOf(last.durations, last.durations.length + 1);
         temps[temps.length - 1] = capK;
@@ -414,7 +444,7 @@ public final class Planner {
             }
             // where the real recipe so far leaves the hot corner
             Shape partial = new Shape(unbox(durations), unbox(temps), 1);
-            BakeResult r = BakeSimulator.simulate(bake.withRecipe(toRecipe(partial, 1e-3)),
+            BakeResult r = BakeSimulator.simulate(bake.withRecipe(toRecipe(partial, 1e-3, false)),
                     search.withSampleInterval(1e9));
             evaluations++;
             CornerResult hot = r.hottest();
@@ -619,7 +649,7 @@ public final class Planner {
             elapsed += dr;
             t = target;
         }
-        double hold = ceilTo(Math.max(timeToTargetS - elapsed, tool.minStepS()), ts);
+        double hold = Math.max(ceilTo(Math.max(timeToTargetS - elapsed, tool.minStepS()), ts), Math.max(tool.minStepS(), ts));
         steps.add(new Step.Hold(hold));
         if (tool.hasUnload() && tool.unloadK() < t) {
             double dr = ceilTo(Math.max((t - tool.unloadK()) / tool.maxRampDownKPerS(), tool.minStepS()), ts);
@@ -699,8 +729,16 @@ public final class Planner {
                     new PlanResult.Infeasibility("residue", "the residue target is not reached under the ceiling",
                             bestU, LONG_HOLD_S, suggestion));
         }
-        String limit = best.worst.isEmpty() ? (worst == null ? "unknown" : worst.limit()) : best.worst;
-        String suggestion = switch (limit) {
+        Margin proofWorst = lastProof == null ? null
+                : lastProof.violated().stream().filter(m -> !m.limit().equals("residue")).findFirst().orElse(null);
+        String limit = proofWorst != null ? proofWorst.limit()
+                : !best.worst.isEmpty() && best.minMargin < 1 ? best.worst : worst == null ? "unknown" : worst.limit();
+        String dominant = proofWorst != null ? proofWorst.detail() : "";
+        boolean thermal = dominant.equals("thermal") && List.of("strength", "cracking", "delamination").contains(limit);
+        String suggestion = thermal
+                ? "the cap's thermal-mismatch stress alone is too high at a temperature the bake must pass: a cap with "
+                  + "less intrinsic or mismatch stress, a stronger or tougher film, or a lower safety factor"
+                : switch (limit) {
             case "pressure", "strength", "cracking", "delamination", "deflection" ->
                     "the trapped pressure is too high even at the slowest recipe tried: a more porous or thinner cap, "
                     + "larger pores, or a higher allowed pressure";

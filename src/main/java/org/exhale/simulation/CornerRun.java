@@ -273,7 +273,7 @@ final class CornerRun {
                 double dt = sampleTimes[i] - sampleTimes[i - 1];
                 if (dt > 0 && n1 > 1e-3 * storedPeak && n0 > 0) {
                     double relax = Math.max(samples[i][model.oRelax], samples[i - 1][model.oRelax]);
-                    double est = relax * Math.abs(n1 - n0) / (dt * Math.max(n1, n0));
+                    double est = relax * Math.abs(Math.log(n1 / n0)) / dt;
                     qsError = Math.max(qsError, Double.isNaN(est) ? Double.POSITIVE_INFINITY : est);
                 }
             }

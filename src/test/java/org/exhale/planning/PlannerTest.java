@@ -72,6 +72,8 @@ class PlannerTest {
                 assertTrue(rate <= max * (1 + 1e-9), name + ": ramp faster than the tool");
             }
             assertTrue(p.durationS() >= p.lowerBound().boundS(), name + ": plan beats its own lower bound");
+            assertTrue(p.verification().timeToTargetS() <= p.durationS() + 1e-6,
+                    name + ": the target is reached only after the final hold (during the cool-down)");
         }
     }
 
@@ -196,5 +198,37 @@ class PlannerTest {
         assertTrue(m.holds() && m.margin() < 1.2, "chamber margin " + m.margin() + " should hold and bind");
         assertTrue(p.durationS() > free.durationS(), "the chamber limit did not slow the plan");
         assertTrue(p.binding().contains("chamber"), "no step bound by the chamber: " + p.binding());
+    }
+
+    private static CaseFile template(String from, String to) throws java.io.IOException {
+        String text = java.nio.file.Files.readString(Path.of("src/main/resources/templates/line.yaml"));
+        String edited = text.replace(from, to);
+        assertTrue(!edited.equals(text), "edit did not apply: " + from);
+        return CaseYamlReader.parse("line-edited.yaml", edited.getBytes(java.nio.charset.StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void aBindingThermalDoseIsPlannedWithItsCoolDownCounted() throws Exception {
+        // the cool-down's share of the dose counts: a 10 min budget forces a lower hold and the shortest hold
+        CaseFile cf = template("    max: 2 h", "    max: 10 min");
+        PlanResult p = Planner.plan(cf.bake(), cf.tool());
+        assertTrue(p.verified(), "dose case not planned: " + p.infeasibility() + " " + p.notes());
+        var dose = p.verification().margin("thermal_dose");
+        assertTrue(dose.holds() && dose.margin() < 1.1, "dose margin " + dose.margin());
+        assertTrue(String.join(" ", p.binding()).contains("thermal_dose"), "binding " + p.binding());
+    }
+
+    @Test
+    void toolLimitsAreKeptOrReported() throws Exception {
+        CaseFile zero = template("  min_step: 30 s", "  min_step: 0 s");
+        PlanResult p = Planner.plan(zero.bake(), zero.tool());
+        assertTrue(p.verified(), "min_step 0: " + p.infeasibility());
+        for (Step s : p.recipe().steps()) {
+            assertTrue(!(s instanceof Step.Hold h) || h.durationS() >= 1, "empty hold " + s);
+        }
+        CaseFile two = template("  max_steps: 12", "  max_steps: 2");
+        PlanResult q = Planner.plan(two.bake(), two.tool());
+        assertNull(q.recipe(), "a recipe with more steps than the tool takes");
+        assertEquals("max_steps", q.infeasibility().limit());
     }
 }
