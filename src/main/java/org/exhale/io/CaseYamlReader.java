@@ -67,21 +67,24 @@ public final class CaseYamlReader {
     }
 
     public static CaseFile read(Path path) {
+        return parse(path.toString(), readBytes(path, "a case file is a few KiB"));
+    }
+
+    /** The bytes of a YAML input file, refused when missing, unreadable or over {@link #MAX_BYTES}. */
+    private static byte[] readBytes(Path path, String sizeHint) {
         String name = path.toString();
-        byte[] bytes;
         try {
             if (!Files.isRegularFile(path)) {
                 throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "no such file");
             }
             if (Files.size(path) > MAX_BYTES) {
                 throw new InputException(ErrorKind.TOO_LARGE, name, "", 0,
-                        "file is larger than " + (MAX_BYTES >> 10) + " KiB; a case file is a few KiB");
+                        "file is larger than " + (MAX_BYTES >> 10) + " KiB; " + sizeHint);
             }
-            bytes = Files.readAllBytes(path);
+            return Files.readAllBytes(path);
         } catch (IOException e) {
             throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "cannot read: " + e.getMessage());
         }
-        return parse(name, bytes);
     }
 
     public static CaseFile parse(String name, byte[] bytes) {
@@ -115,7 +118,8 @@ public final class CaseYamlReader {
         return text;
     }
 
-    private CaseFile readText(String name, String text) {
+    /** Composes YAML text into nodes, safely (no object construction, capped aliases, nesting and size). */
+    private static Node compose(String name, String text) {
         LoaderOptions options = new LoaderOptions();
         options.setMaxAliasesForCollections(20);
         options.setNestingDepthLimit(20);
@@ -144,6 +148,11 @@ public final class CaseYamlReader {
         if (node == null) {
             throw new InputException(ErrorKind.EMPTY_FILE, name, "", 0, "the file holds no YAML document");
         }
+        return node;
+    }
+
+    private CaseFile readText(String name, String text) {
+        Node node = compose(name, text);
         YamlNode root = YamlNode.root(name, node, recorder);
         if (!root.isMapping()) {
             throw root.error(ErrorKind.WRONG_TYPE, "a case file is a mapping of sections (polymer, cavity, cap, ...), found "
@@ -640,36 +649,7 @@ public final class CaseYamlReader {
      */
     public static Recipe readRecipe(Path path) {
         String name = path.toString();
-        byte[] bytes;
-        try {
-            if (!Files.isRegularFile(path)) {
-                throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "no such file");
-            }
-            if (Files.size(path) > MAX_BYTES) {
-                throw new InputException(ErrorKind.TOO_LARGE, name, "", 0, "file is larger than " + (MAX_BYTES >> 10) + " KiB");
-            }
-            bytes = Files.readAllBytes(path);
-        } catch (IOException e) {
-            throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "cannot read: " + e.getMessage());
-        }
-        String text = decode(name, bytes);
-        LoaderOptions options = new LoaderOptions();
-        options.setMaxAliasesForCollections(20);
-        options.setNestingDepthLimit(20);
-        options.setCodePointLimit((int) MAX_BYTES);
-        options.setAllowDuplicateKeys(false);
-        Node node;
-        try {
-            node = new Yaml(options).compose(new StringReader(text));
-        } catch (MarkedYAMLException e) {
-            int line = e.getProblemMark() == null ? 0 : e.getProblemMark().getLine() + 1;
-            throw new InputException(ErrorKind.SYNTAX, name, "", line, "invalid YAML: " + e.getProblem());
-        } catch (YAMLException e) {
-            throw new InputException(ErrorKind.SYNTAX, name, "", 0, "invalid YAML: " + firstLine(String.valueOf(e.getMessage())));
-        }
-        if (node == null) {
-            throw new InputException(ErrorKind.EMPTY_FILE, name, "", 0, "the file holds no YAML document");
-        }
+        Node node = compose(name, decode(name, readBytes(path, "a recipe file is a few KiB")));
         YamlNode root = YamlNode.root(name, node);
         if (!root.isMapping()) {
             throw root.error(ErrorKind.WRONG_TYPE, "a recipe file is a mapping with a 'recipe' block, found " + root.describe());
