@@ -149,6 +149,7 @@ final class CompareCommand implements Callable<Integer> {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("complete", complete);
         m.put("case", cf.path());
+        m.put("case_name", cf.bake().name());
         m.put("options_total", total);
         m.put("options_done", done.size());
         m.put("threads", threads);

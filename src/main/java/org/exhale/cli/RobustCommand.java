@@ -199,6 +199,7 @@ final class RobustCommand implements Callable<Integer> {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("complete", complete);
         m.put("case", cf.path());
+        m.put("case_name", cf.bake().name());
         m.put("seed", s);
         m.put("samples", samples);
         m.put("samples_done", sum.n());

@@ -140,7 +140,7 @@ final class HtmlReport {
                     : "<p class=\"verdict bad\">✗ A limit is violated</p>\n");
         }
         b.append("<h2 id=\"headline\">Headline figures</h2>\n");
-        scalars(s, Set.of("case", "all_limits_met"));
+        scalars(s, Set.of("case", "case_name", "all_limits_met"));
         warnings(s.path("warnings"), "Warnings");
         if (s.path("margins").isObject() && s.path("margins").size() > 0) {
             b.append("<h2 id=\"margins\">Margins to the limits</h2>\n");

@@ -108,12 +108,14 @@ public record RunFolder(Path dir, Optional<JsonNode> summary, Optional<CsvTable>
         }
     }
 
-    /** The case name from summary.json (else the case file named in compare.json or robust.json), else the folder's name. */
+    /** The case name from summary.json (else compare.json or robust.json: its case name, else its case file), else the folder's name. */
     public String caseName() {
         String n = summary.map(s -> s.path("case").asText("")).orElse("");
         for (Optional<JsonNode> j : java.util.List.of(compare, robust)) {
             if (n.isBlank()) {
-                n = j.map(s -> s.path("case").isValueNode() ? s.path("case").asText("") : "").orElse("");
+                n = j.map(s -> s.path("case_name").isValueNode() && !s.path("case_name").asText("").isBlank()
+                        ? s.path("case_name").asText("")
+                        : s.path("case").isValueNode() ? s.path("case").asText("") : "").orElse("");
             }
         }
         if (n.isBlank()) {
