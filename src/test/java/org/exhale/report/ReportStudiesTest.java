@@ -110,7 +110,7 @@ class ReportStudiesTest {
             for (String want : e.getValue()) {
                 assertTrue(t.contains(want), e.getKey() + ": no text '" + want + "' in " + t);
             }
-            assertTrue(t.contains("data/demo/porous-line-uncertain.yaml"), e.getKey() + ": case as subtitle");
+            assertTrue(t.contains("line air gap, porous cap B, with uncertainty"), e.getKey() + ": case name as subtitle");
         }
     }
 
