@@ -55,15 +55,7 @@ final class PlanCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         CaseFile cf = CaseYamlReader.read(casePath);
-        if (cf.tool() == null) {
-            throw new InputException(ErrorKind.MISSING_KEY, casePath.toString(), "tool", 0,
-                    "planning needs a 'tool' section (max_ramp_up, max_ramp_down, setpoint_step, time_step, min_step, "
-                            + "max_steps, unload)");
-        }
-        if (cf.bake().recipe() == null) {
-            throw new InputException(ErrorKind.MISSING_KEY, casePath.toString(), "recipe.start", 0,
-                    "planning needs the start temperature: give 'recipe: {start: 150 C, steps: [...]}'");
-        }
+        CompareCommand.requireTool(cf, casePath);
         Path dir = output != null ? output : Path.of("out", SimulateCommand.defaultOutput(casePath).getFileName() + "-plan");
         OutputFolder out = new OutputFolder(dir, common.force).owns("recipe.csv", "recipe.yaml", "history.csv", "summary.json", "report.html", "charts");
         out.checkWritable();
