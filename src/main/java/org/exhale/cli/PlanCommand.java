@@ -69,14 +69,14 @@ final class PlanCommand implements Callable<Integer> {
             out.put("summary.json", SummaryJsonWriter.toJson(SummaryJsonWriter.summary(plan.verification(), warnings)));
         }
         out.commit();
-        if (report) {
-            ReportCommand.render(out.dir(), common.quiet);
-        }
         if (!common.quiet) {
             System.out.print(text(plan, seconds));
             warnings.forEach(w -> System.out.println("Warning: " + w));
             System.out.println("Wrote " + out.dir() + (plan.feasible() ? " (recipe.csv, recipe.yaml, plan.json, history.csv, summary.json)" : " (plan.json)"));
             Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+        }
+        if (report) {
+            ReportCommand.render(out.dir(), common.quiet);
         }
         return plan.feasible() ? Main.OK : Main.INFEASIBLE;
     }

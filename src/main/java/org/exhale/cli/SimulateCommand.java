@@ -62,13 +62,13 @@ final class SimulateCommand implements Callable<Integer> {
         out.put("history.csv", HistoryCsvWriter.write(r));
         out.put("summary.json", SummaryJsonWriter.toJson(SummaryJsonWriter.summary(r, warnings)));
         out.commit();
-        if (report) {
-            ReportCommand.render(out.dir(), common.quiet);
-        }
         if (!common.quiet) {
             System.out.print(TextSummary.of(r, warnings));
             System.out.println("Wrote " + out.dir().resolve("history.csv") + " and summary.json");
             Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+        }
+        if (report) {
+            ReportCommand.render(out.dir(), common.quiet);
         }
         return r.feasible() ? Main.OK : Main.VIOLATED;
     }
