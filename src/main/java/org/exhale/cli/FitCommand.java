@@ -18,7 +18,6 @@ import org.exhale.fitting.ModelFitOptions;
 import org.exhale.fitting.ModelFitResult;
 import org.exhale.fitting.ModelKind;
 import org.exhale.fitting.TgaRun;
-import org.exhale.io.AtomicFiles;
 import org.exhale.io.ErrorKind;
 import org.exhale.io.FitCsvWriter;
 import org.exhale.io.FitJsonWriter;
@@ -52,8 +51,11 @@ public final class FitCommand implements Callable<Integer> {
     @Parameters(arity = "1..*", paramLabel = "RUN.csv", description = "TGA runs (CSV).")
     List<Path> runFiles;
 
-    @Option(names = {"-o", "--output"}, paramLabel = "DIR", defaultValue = ".", description = "Output folder (default: ${DEFAULT-VALUE}).")
+    @Option(names = {"-o", "--output"}, paramLabel = "DIR", defaultValue = "out/fit", description = "Output folder (default: ${DEFAULT-VALUE}).")
     Path output;
+
+    @picocli.CommandLine.Mixin
+    CommonOptions common = new CommonOptions();
 
     @Option(names = "--components", paramLabel = "1|2|3|auto", defaultValue = "auto",
             description = "Number of parallel components; auto tries 1, 2 and 3 and keeps the lowest BIC (default: ${DEFAULT-VALUE}).")
@@ -91,6 +93,9 @@ public final class FitCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         long started = System.nanoTime();
+        org.exhale.io.OutputFolder folder = new org.exhale.io.OutputFolder(output, common.force)
+                .owns("report.html", "charts");
+        folder.checkWritable();
 
         double[] alphaRange = parseRange(range);
         double residueFraction = residue == null ? Double.NaN : option("--residue", residue, UnitKind.FRACTION, true);
@@ -196,11 +201,13 @@ public final class FitCommand implements Callable<Integer> {
         settings.put("seed_conversion", fitOptions.seedConversion());
         settings.put("confidence", analysis.confidence());
 
-        AtomicFiles.writeString(output.resolve("kinetics.yaml"), KineticsYamlWriter.format(chosen, charFraction, charOrigin,
+        // all four files at once, never half-written, an existing non-empty folder only with --force
+        folder.put("kinetics.yaml", KineticsYamlWriter.format(chosen, charFraction, charOrigin,
                 molarMassKg * 1e3, diameterM * 1e9, header));
-        AtomicFiles.writeString(output.resolve("isoconversional.csv"), IsoconversionalCsvWriter.format(report.isoconversional()));
-        AtomicFiles.writeString(output.resolve("fit.csv"), FitCsvWriter.format(chosen));
-        AtomicFiles.writeString(output.resolve("fit.json"), FitJsonWriter.format(report, settings, notes));
+        folder.put("isoconversional.csv", IsoconversionalCsvWriter.format(report.isoconversional()));
+        folder.put("fit.csv", FitCsvWriter.format(chosen));
+        folder.put("fit.json", FitJsonWriter.format(report, settings, notes));
+        folder.commit();
 
         summary(out, report);
         for (String w : report.warnings()) {

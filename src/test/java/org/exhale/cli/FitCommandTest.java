@@ -73,4 +73,26 @@ class FitCommandTest {
         assertEquals(2, run(out, err, f.toString(), "--molar-mass", "100 nm", "-o", dir.toString()));
         assertEquals(2, run(out, err, dir.resolve("missing.csv").toString(), "-o", dir.toString()));
     }
+
+    @Test
+    void anExistingResultIsKeptWithoutForce(@TempDir Path dir) throws Exception {
+        String[] args = new String[DemoTgaData.RATES_K_PER_MIN.length + 2];
+        int i = 0;
+        for (String[] f : DemoTgaData.files()) {
+            Path p = dir.resolve(f[0]);
+            Files.writeString(p, f[1]);
+            args[i++] = p.toString();
+        }
+        args[i++] = "-o";
+        args[i] = dir.resolve("out").toString();
+        Files.createDirectories(dir.resolve("out"));
+        Files.writeString(dir.resolve("out/kinetics.yaml"), "earlier result\n");
+        StringWriter out = new StringWriter(), err = new StringWriter();
+        assertEquals(2, run(out, err, args), err.toString());
+        assertEquals("earlier result\n", Files.readString(dir.resolve("out/kinetics.yaml")), "overwritten without --force");
+        String[] forced = java.util.Arrays.copyOf(args, args.length + 1);
+        forced[args.length] = "--force";
+        assertEquals(0, run(out, err, forced), err.toString());
+        assertTrue(Files.readString(dir.resolve("out/kinetics.yaml")).contains("components"));
+    }
 }
