@@ -27,7 +27,7 @@ import org.w3c.dom.Document;
  * a limit name and an uncertain value's name made hostile afterwards.
  */
 class ReportStudiesTest {
-    private static final String SVG_NS = "http://www.w3.org/2000/svg";
+    private static final String SVG_NS = SelfContainedPage.SVG_NS;
     /** Replaces the limit name "strength" in options.csv: shows in the map's cells and the ranked table. */
     private static final String LIMIT = "<b>str&ength";
     /** Replaces the uncertain value "spread_K" in robust.json: shows in the sensitivity chart and tables. */
@@ -159,16 +159,7 @@ class ReportStudiesTest {
     @Test
     void pageHasNoScriptAndNoAddressButTheSvgNamespace() throws Exception {
         for (Path dir : List.of(compareDir, robustDir)) {
-            String html = Files.readString(dir.resolve("report.html"));
-            assertFalse(html.toLowerCase(Locale.ROOT).contains("<script"), dir.toString());
-            Matcher m = Pattern.compile("(?i)https?://[^\"'\\s<>)]*").matcher(html);
-            while (m.find()) {
-                assertEquals(SVG_NS, m.group(), dir + ": address in the page");
-            }
-            assertFalse(Pattern.compile("url\\((?!#)").matcher(html).find(), "url() only to ids in the page");
-            assertFalse(Pattern.compile("(?i)(href|src)=['\"](?!#|charts/)").matcher(html).find(),
-                    "links only to the chart files beside the page");
-            assertFalse(html.toLowerCase(Locale.ROOT).matches("(?s).*\\son[a-z]+=.*"), "no event handler attribute");
+            SelfContainedPage.check(dir);
         }
     }
 
