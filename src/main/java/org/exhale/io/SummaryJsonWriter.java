@@ -31,6 +31,8 @@ public final class SummaryJsonWriter {
         m.put("peak_excess_pressure_time_s", num(pc.peakPressure().timeS()));
         m.put("time_to_1pct_s", num(r.timeTo1pctS()));
         m.put("time_to_target_s", num(r.timeToTargetS()));
+        m.put("unconverted_at_checkpoint", num(r.unconvertedAtCheckpoint()));
+        m.put("residue_checkpoint", checkpoint(r.residueCheckpoint()));
         m.put("final_unconverted", num(r.finalUnconverted()));
         m.put("max_wafer_temperature_C", num(r.maxWaferTemperatureK() - PhysicalConstants.ZERO_CELSIUS_K));
         m.put("thermal_dose_s", r.bake().limits().dose() == null ? null : num(r.thermalDoseS()));
@@ -72,6 +74,7 @@ public final class SummaryJsonWriter {
             cm.put("max_relaxation_time_s", num(c.max("relaxation_time_s").value()));
             cm.put("time_to_1pct_s", num(c.timeTo1pctS()));
             cm.put("time_to_target_s", num(c.timeToTargetS()));
+            cm.put("unconverted_at_checkpoint", num(c.unconvertedAtCheckpoint()));
             cm.put("final_unconverted", num(c.finalUnconverted()));
             cm.put("thermal_dose_s", num(c.thermalDoseS()));
             cm.put("mass_balance_error", num(c.massBalanceError()));
@@ -105,11 +108,21 @@ public final class SummaryJsonWriter {
             e.put("time_s", num(g.timeS()));
             e.put("corner", g.corner());
             if (!g.detail().isEmpty()) {
-                e.put("dominant", g.detail());
+                e.put(g.limit().equals("residue") ? "evaluated_at" : "dominant", g.detail());
             }
             out.put(g.limit(), e);
         }
         return out;
+    }
+
+    /** Where the residue target applies: the end of the final hold, or why elsewhere. */
+    public static Map<String, Object> checkpoint(org.exhale.recipe.ResidueCheckpoint at) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("time_s", num(at.timeS()));
+        m.put("step", at.stepIndex() + 1);
+        m.put("final_hold", at.finalHold());
+        m.put("description", at.describe());
+        return m;
     }
 
     /** A finite number, or null. */

@@ -47,6 +47,9 @@ final class CornerRun {
     private double nextSample;
     private double timeTo1pct = Double.NaN;
     private double timeToTarget = Double.NaN;
+    /** The step at whose end the residue target applies, and the unconverted fraction there. */
+    private final int checkpointStep;
+    private double unconvertedAtCheckpoint = Double.NaN;
     private double qsError;
     private double storedPeak;
     private boolean first = true;
@@ -65,6 +68,7 @@ final class CornerRun {
         this.recipe = bake.recipe();
         this.settings = settings;
         this.residueTarget = bake.limits().residue();
+        this.checkpointStep = recipe.residueCheckpoint().stepIndex();
         this.corner = corner;
         this.offsetK = offsetK;
         this.columns = model.observableNames();
@@ -125,6 +129,9 @@ final class CornerRun {
                 first = false;
             }
             if (seg.durationS() <= 0) {
+                if (seg.stepIndex() == checkpointStep) {
+                    unconvertedAtCheckpoint = samples[samplesPerStep][model.oUnconverted];
+                }
                 continue;
             }
             if (useRosenbrock) {
@@ -138,6 +145,9 @@ final class CornerRun {
             }
             // segment end always recorded
             double[] last = samples[samplesPerStep];
+            if (seg.stepIndex() == checkpointStep) {
+                unconvertedAtCheckpoint = last[model.oUnconverted];
+            }
             if (settings.sampleIntervalS() > 0 && (history.isEmpty() || history.get(history.size() - 1)[0] < last[0])) {
                 history.add(last.clone());
             }
@@ -155,7 +165,7 @@ final class CornerRun {
             rows.put(columns.get(tracked[i]), maxRow[i]);
         }
         return new CornerResult(corner, offsetK, model.regime, qsError, maxima, rows, timeTo1pct, timeToTarget,
-                end[model.oUnconverted], end[model.oDose], balance, columns, history, evaluations);
+                end[model.oUnconverted], unconvertedAtCheckpoint, end[model.oDose], balance, columns, history, evaluations);
     }
 
     private static double[] fill(double v, int n) {
