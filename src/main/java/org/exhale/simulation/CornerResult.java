@@ -9,7 +9,9 @@ import java.util.Map;
  * @param corner             "nominal", "hot" or "cold"
  * @param offsetK            temperature offset of this corner from the setpoint program [K]
  * @param regime             the gas regime used
- * @param quasiSteadyError   estimated relative error of the quasi-steady pressure, max τ_g |d ln n/dt|
+ * @param quasiSteadyError   estimated storage error of the quasi-steady solution: max τ_g |dn/dt| R T/V_g relative
+ *                           to the peak excess pressure (and, with a chamber, max |dn/dt| relative to the peak
+ *                           vent flux); see {@link BakeSimulator}
  * @param maxima             the largest value and its time of each tracked quantity, by history column
  * @param atMaximum          the whole history row at each of those maxima
  * @param timeTo1pctS        first time the unconverted fraction reaches 1 %
@@ -18,7 +20,9 @@ import java.util.Map;
  * @param unconvertedAtCheckpoint unconverted fraction where the residue target applies: the end of the
  *                           final hold ({@link org.exhale.recipe.ResidueCheckpoint})
  * @param thermalDoseS       equivalent time at the reference temperature [s]
- * @param massBalanceError   |gasified − vented − stored| / gasified at the end
+ * @param massBalanceError   |gasified − vented − stored| / gasified at the end, the moles vented integrated from the
+ *                           observed vent flux by quadrature (not the vented state); stored counts as 0 in the
+ *                           quasi-steady regime, which neglects it
  * @param columns            history column names (SI units in the suffix)
  * @param history            history rows
  * @param evaluations        right-hand-side evaluations

@@ -50,8 +50,12 @@ final class CornerRun {
     /** The step at whose end the residue target applies, and the unconverted fraction there. */
     private final int checkpointStep;
     private double unconvertedAtCheckpoint = Double.NaN;
-    private double qsError;
-    private double storedPeak;
+    /** ∫ vent flux dt so far [mol/m²]. */
+    private double ventIntegral;
+    private double pressureLag;
+    private double storageRate;
+    private double peakFlux;
+    private final boolean chamberMatters;
     private boolean first = true;
     private long evaluations;
 
@@ -63,6 +67,16 @@ final class CornerRun {
      */
     CornerRun(BakeCase bake, String corner, double offsetK, GasRegime regime, SimulationSettings settings,
               double gasScale) {
+        this(bake, corner, offsetK, regime, settings, gasScale, bake.chamber() != null);
+    }
+
+    /**
+     * @param chamberMatters whether the case's chamber limit sees the vent flux (a light pre-run drops the
+     *                       chamber but still judges the storage error on the flux)
+     */
+    CornerRun(BakeCase bake, String corner, double offsetK, GasRegime regime, SimulationSettings settings,
+              double gasScale, boolean chamberMatters) {
+        this.chamberMatters = chamberMatters;
         this.gasScale = Double.isFinite(gasScale) && gasScale > 0 ? Math.min(gasScale, 1) : 1;
         this.model = new BakeModel(bake, offsetK, regime);
         this.recipe = bake.recipe();
@@ -154,16 +168,18 @@ final class CornerRun {
         }
         evaluations = useRosenbrock ? stiff.evaluations() : count[0];
         double[] end = samples[samplesPerStep];
+        // mass balance against the quadrature of the vent flux: full gas, gasified = vented + stored; quasi-steady,
+        // where the storage is neglected (dn/dt = 0), gasified = vented
         double gasified = end[model.oGasified];
-        double balance = model.regime == GasRegime.FULL_GAS
-                ? Math.abs(gasified - end[model.oVented] - end[model.oStored]) / Math.max(gasified, 1e-300)
-                : end[model.oStored] / Math.max(gasified, 1e-300);
+        double held = model.regime == GasRegime.FULL_GAS ? end[model.oStored] : 0;
+        double balance = Math.abs(gasified - ventIntegral - held) / Math.max(gasified, 1e-300);
         Map<String, Extremum> maxima = new LinkedHashMap<>();
         Map<String, double[]> rows = new LinkedHashMap<>();
         for (int i = 0; i < tracked.length; i++) {
             maxima.put(columns.get(tracked[i]), new Extremum(maxValue[i], maxTime[i]));
             rows.put(columns.get(tracked[i]), maxRow[i]);
         }
+        double qsError = model.regime == GasRegime.QUASI_STEADY ? storageError() : 0;
         return new CornerResult(corner, offsetK, model.regime, qsError, maxima, rows, timeTo1pct, timeToTarget,
                 end[model.oUnconverted], unconvertedAtCheckpoint, end[model.oDose], balance, columns, history, evaluations);
     }
@@ -206,7 +222,9 @@ final class CornerRun {
             nextSample = obs[0] + settings.sampleIntervalS();
         }
         checkCrossings(obs, obs, null);
-        storedPeak = obs[model.oStored];
+        peakFlux = obs[model.oFlux];
+        // the bake starts with no gas stored, the quasi-steady solution at once with its own: an initial layer
+        pressureLag = obs[model.oPressure];
     }
 
     private void onStep(StepView step) {
@@ -223,6 +241,9 @@ final class CornerRun {
             step.state(t, scratchState);
             model.observe(t, scratchState, samples[i]);
         }
+        // the moles vented, by quadrature of the observed vent flux over the step's equally spaced samples
+        // (independent of the states, so that the mass balance below is a check, not an identity)
+        ventIntegral += quadrature(model.oFlux, t1 - t0);
         // history on the fixed grid
         if (settings.sampleIntervalS() > 0) {
             while (nextSample <= t1) {
@@ -274,20 +295,60 @@ final class CornerRun {
         for (int i = 1; i <= samplesPerStep; i++) {
             checkCrossings(samples[i - 1], samples[i], step);
         }
-        // quasi-steady error estimate: τ_g |d ln n/dt| where the stored gas matters
+        // storage error of the quasi-steady solution, on what the limits see (BakeSimulator's class javadoc)
         if (model.regime == GasRegime.QUASI_STEADY) {
             for (int i = 1; i <= samplesPerStep; i++) {
-                double n1 = samples[i][model.oStored];
-                double n0 = samples[i - 1][model.oStored];
-                storedPeak = Math.max(storedPeak, n1);
                 double dt = sampleTimes[i] - sampleTimes[i - 1];
-                if (dt > 0 && n1 > 1e-3 * storedPeak && n0 > 0) {
-                    double relax = Math.max(samples[i][model.oRelax], samples[i - 1][model.oRelax]);
-                    double est = relax * Math.abs(Math.log(n1 / n0)) / dt;
-                    qsError = Math.max(qsError, Double.isNaN(est) ? Double.POSITIVE_INFINITY : est);
+                if (!(dt > 0)) {
+                    continue;
                 }
+                double n0 = samples[i - 1][model.oStored];
+                double n1 = samples[i][model.oStored];
+                double rate = Math.abs(n1 - n0) / dt;
+                double relax = Math.max(samples[i][model.oRelax], samples[i - 1][model.oRelax]);
+                // R T / V_g = Δp / n at either end of the interval
+                double perMole = Math.max(n0 > 0 ? samples[i - 1][model.oPressure] / n0 : 0,
+                        n1 > 0 ? samples[i][model.oPressure] / n1 : 0);
+                double lag = relax * rate * perMole;
+                pressureLag = Math.max(pressureLag, Double.isNaN(lag) ? Double.POSITIVE_INFINITY : lag);
+                storageRate = Math.max(storageRate, Double.isNaN(rate) ? Double.POSITIVE_INFINITY : rate);
+                peakFlux = Math.max(peakFlux, samples[i][model.oFlux]);
             }
         }
+    }
+
+    /**
+     * The estimated storage error of the quasi-steady solution: the first-order lag of the excess
+     * pressure, max τ_g |dn/dt| R T/V_g, and the initial layer (the quasi-steady pressure at the start,
+     * where the real cavity holds no gas yet), relative to the peak; with a chamber also the stored
+     * gas's share of the vent flux, max |dn/dt|, relative to the peak flux.
+     */
+    private double storageError() {
+        double peak = maxValue[2];
+        double onPressure = pressureLag == 0 ? 0 : peak > 0 ? pressureLag / peak : Double.POSITIVE_INFINITY;
+        double onFlux = !chamberMatters || storageRate == 0 ? 0 : peakFlux > 0 ? storageRate / peakFlux : Double.POSITIVE_INFINITY;
+        return Math.max(onPressure, onFlux);
+    }
+
+    /** ∫ of one observable over the current step from its samples: composite Simpson, Simpson's 3/8 for three intervals. */
+    private double quadrature(int col, double span) {
+        int n = samplesPerStep;
+        double h = span / n;
+        if (n % 2 == 0) {
+            double sum = samples[0][col] + samples[n][col];
+            for (int i = 1; i < n; i++) {
+                sum += (i % 2 == 1 ? 4 : 2) * samples[i][col];
+            }
+            return sum * h / 3;
+        }
+        if (n == 3) {
+            return 3 * h / 8 * (samples[0][col] + 3 * samples[1][col] + 3 * samples[2][col] + samples[3][col]);
+        }
+        double sum = 0.5 * (samples[0][col] + samples[n][col]);
+        for (int i = 1; i < n; i++) {
+            sum += samples[i][col];
+        }
+        return sum * h;
     }
 
     private void checkCrossings(double[] before, double[] after, StepView step) {
