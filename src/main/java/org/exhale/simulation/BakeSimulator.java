@@ -14,7 +14,9 @@ import java.util.List;
  * delamination, deflection) is a function of, is off by about τ_g |dn/dt| R T/V_g. That error,
  * at its largest over the bake, relative to the peak excess pressure is the estimate ε; with a
  * chamber, the stored gas also delays the vent flux by dn/dt, and max |dn/dt| relative to the peak
- * vent flux enters ε too. The residue and the thermal limits do not see the gas at all (the
+ * vent flux enters ε too. The initial layer (the cavity starts empty while the quasi-steady
+ * solution starts at G/K, for a few τ_g) is left out: there quasi-steady over-states the pressure,
+ * on the safe side. The residue and the thermal limits do not see the gas at all (the
  * kinetics do not depend on the pressure). Unlike a relative rate τ_g |d ln n/dt|, ε does not grow
  * where a vanishing amount of gas changes quickly at the end of the bake. If ε ≤
  * {@value #QUASI_STEADY_ERROR} the quasi-steady result stands (every margin to a pressure-driven

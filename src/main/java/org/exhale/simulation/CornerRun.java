@@ -223,8 +223,6 @@ final class CornerRun {
         }
         checkCrossings(obs, obs, null);
         peakFlux = obs[model.oFlux];
-        // the bake starts with no gas stored, the quasi-steady solution at once with its own: an initial layer
-        pressureLag = obs[model.oPressure];
     }
 
     private void onStep(StepView step) {
@@ -319,9 +317,10 @@ final class CornerRun {
 
     /**
      * The estimated storage error of the quasi-steady solution: the first-order lag of the excess
-     * pressure, max τ_g |dn/dt| R T/V_g, and the initial layer (the quasi-steady pressure at the start,
-     * where the real cavity holds no gas yet), relative to the peak; with a chamber also the stored
-     * gas's share of the vent flux, max |dn/dt|, relative to the peak flux.
+     * pressure, max τ_g |dn/dt| R T/V_g, relative to its peak; with a chamber also the stored gas's
+     * share of the vent flux, max |dn/dt|, relative to the peak flux. The initial layer (the cavity
+     * starts with no gas, the quasi-steady solution at once with G/K, for a few τ_g) is left out: there
+     * the quasi-steady pressure is the higher one, on the safe side for every limit.
      */
     private double storageError() {
         double peak = maxValue[2];

@@ -60,18 +60,36 @@ class ChamberBalanceTest {
         assertEquals(1e6 * q / (f + q), last[ppm], 1e-5 * 1e6 * q / (f + q));
     }
 
+    /*
+     * What left the chamber, against an independent quadrature of the exhaust stream: exhausted(t_end) =
+     * ∫ (F + Q) y dt with Q the load and y the mole fraction, both read from the history (trapezoid rule on a
+     * 2 s grid against a chamber time constant of about 190 s: error of order (h/τ)²/12 ≈ 1e-5; tolerance
+     * 1e-3 covers the kinks of the load at the recipe's breakpoints). The simulator integrates the exhausted
+     * moles as a state, so this is a check, not an identity (evolved = held + exhausted would be one).
+     * Common practice, no source.
+     */
     @Test
-    void evolvedEqualsExhaustedPlusHeldInBothRegimes() {
+    void exhaustedMolesMatchAQuadratureOfTheExhaustStream() {
         Chamber chamber = new Chamber(25, 0.3, 0.6, 0.5, 0.06, TestCases.c(250), 101_325,
                 10 * 1000 * PhysicalConstants.MOL_PER_S_PER_SCCM, 1e-3, "1000 ppm");
         for (BakeCase bake : new BakeCase[]{TestCases.porousLine().withChamber(chamber),
                                             TestCases.denseDisc().withChamber(chamber)}) {
-            BakeResult r = BakeSimulator.simulate(bake);
+            BakeResult r = BakeSimulator.simulate(bake, SimulationSettings.defaults().withSampleInterval(2));
             for (CornerResult c : r.corners()) {
+                int load = c.column("chamber_load_sccm");
+                int ppm = c.column("chamber_ppm");
+                double integral = 0;
+                for (int i = 1; i < c.history().size(); i++) {
+                    double[] a = c.history().get(i - 1);
+                    double[] b = c.history().get(i);
+                    double fa = (chamber.purgeMolPerS() + a[load] * PhysicalConstants.MOL_PER_S_PER_SCCM) * a[ppm] * 1e-6;
+                    double fb = (chamber.purgeMolPerS() + b[load] * PhysicalConstants.MOL_PER_S_PER_SCCM) * b[ppm] * 1e-6;
+                    integral += 0.5 * (fa + fb) * (b[0] - a[0]);
+                }
                 double[] last = c.history().get(c.history().size() - 1);
-                double evolved = last[c.column("evolved_mol")];
-                double balance = Math.abs(evolved - last[c.column("chamber_mol")] - last[c.column("exhausted_mol")]) / evolved;
-                assertTrue(balance < 1e-8, bake.name() + " " + c.regime() + ": chamber balance " + balance);
+                double exhausted = last[c.column("exhausted_mol")];
+                System.out.printf("%s %s: exhausted %.6g mol, quadrature %.6g mol%n", bake.name(), c.regime(), exhausted, integral);
+                assertEquals(exhausted, integral, 1e-3 * exhausted, bake.name() + " " + c.regime());
             }
             assertTrue(r.margin("chamber") != null, "the chamber limit is reported as a margin");
         }

@@ -16,8 +16,9 @@ import org.junit.jupiter.params.provider.CsvSource;
  * the quasi-steady solution while its storage error ε — the first-order lag τ_g |dn/dt| R T/V_g of
  * the excess pressure, at its largest, relative to the peak excess pressure; with a chamber also the
  * stored share of the vent flux — is at most QUASI_STEADY_ERROR = 1e-3). The intermediate cases are
- * the dense-disc fixture with a permeation-only cap whose Π0 sets τ_g ∝ 1/Π0. The estimate includes the
- * initial layer: the cavity starts with no gas, the quasi-steady solution with G/K at once.
+ * the dense-disc fixture with a permeation-only cap whose Π0 sets τ_g ∝ 1/Π0. The estimate leaves out the
+ * initial layer (the cavity starts with no gas, the quasi-steady solution at G/K at once, for a few τ_g),
+ * where quasi-steady over-states the pressure: on the safe side, and checked to be so.
  *
  * <p>The full-gas solution is the independent reference here: the moles under the cap integrated as
  * states by the Rosenbrock method, never assuming dn/dt = 0. Consistency checks between two methods,
@@ -44,12 +45,15 @@ class GasRegimeTest {
         return Math.abs(a - b) / Math.abs(b);
     }
 
-    /** Largest |Δp_a − Δp_b| over the common history grid, relative to b's peak. */
+    /**
+     * Largest |Δp_a − Δp_b| over the common history grid after the initial layer (the first row, where
+     * the full-gas cavity starts empty and a quasi-steady run starts at G/K), relative to b's peak.
+     */
     private static double historyDifference(CornerResult a, CornerResult b) {
         int p = a.column("excess_pressure_Pa");
         double worst = 0;
         int n = Math.min(a.history().size(), b.history().size());
-        for (int i = 0; i < n; i++) {
+        for (int i = 1; i < n; i++) {
             double[] x = a.history().get(i);
             double[] y = b.history().get(i);
             if (x[0] == y[0]) {
@@ -57,6 +61,12 @@ class GasRegimeTest {
             }
         }
         return worst / b.peakPressure().value();
+    }
+
+    /** In the initial layer quasi-steady over-states the pressure (the safe side): b − a at the first row, relative. */
+    private static double initialShortfall(CornerResult a, CornerResult b) {
+        int p = a.column("excess_pressure_Pa");
+        return (b.history().get(0)[p] - a.history().get(0)[p]) / b.peakPressure().value();
     }
 
     private static BakeCase line(BakeCase b) {
@@ -99,6 +109,9 @@ class GasRegimeTest {
                 double peak = rel(q.peakPressure().value(), f.peakPressure().value());
                 System.out.printf("%s: ε %.3g, history %.3g, peak %.3g of the peak%n", what, eps, hist, peak);
                 assertTrue(hist <= eps + REFERENCE, what + ": history differs by " + hist + " of the peak, ε " + eps);
+                // only the first history row lies in the initial layer: the next is 20 τ_g (at the start) later
+                assertTrue(q.history().get(1)[0] > 20 * q.history().get(0)[q.column("relaxation_time_s")], what);
+                assertTrue(initialShortfall(q, f) <= eps + REFERENCE, what + ": quasi-steady below full gas at the start");
                 assertTrue(peak <= eps + REFERENCE, what + ": peak differs by " + peak + ", ε " + eps);
                 if (bake.chamber() != null) {
                     double ppm = rel(q.max("chamber_ppm").value(), f.max("chamber_ppm").value());

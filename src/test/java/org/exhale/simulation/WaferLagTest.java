@@ -1,6 +1,5 @@
 package org.exhale.simulation;
 
-import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
@@ -11,38 +10,73 @@ import org.exhale.recipe.Segment;
 import org.exhale.recipe.Step;
 import org.junit.jupiter.api.Test;
 
-/** The wafer's first-order lag dT/dt = (T_s − T)/τ_w of MODEL.md §2 against its closed form. */
+/**
+ * The wafer's first-order lag dT/dt = (T_s − T)/τ_w of MODEL.md §2. The simulator solves it in closed
+ * form per segment; the reference here integrates the ODE itself, independently, with the classical
+ * fourth-order Runge–Kutta method on a fine fixed step over the piecewise-linear setpoint (common
+ * practice, no source).
+ */
 class WaferLagTest {
+    /** Setpoint of the recipe at t (linear within each segment). */
+    private static double setpoint(Recipe r, double t) {
+        for (Segment s : r.segments()) {
+            if (t <= s.endTimeS()) {
+                return s.setpointAt(t);
+            }
+        }
+        List<Segment> all = r.segments();
+        return all.get(all.size() - 1).endK();
+    }
+
+    /** T(t) on the grid {@code times} (ascending, from 0), RK4 with step h, from T(0) = T_s(0). */
+    private static double[] integrate(Recipe r, double tau, double[] times, double h) {
+        double[] out = new double[times.length];
+        double t = 0;
+        double temp = r.startK();
+        for (int i = 0; i < times.length; i++) {
+            while (t < times[i] - 1e-12) {
+                double dt = Math.min(h, times[i] - t);
+                double k1 = (setpoint(r, t) - temp) / tau;
+                double k2 = (setpoint(r, t + dt / 2) - (temp + dt / 2 * k1)) / tau;
+                double k3 = (setpoint(r, t + dt / 2) - (temp + dt / 2 * k2)) / tau;
+                double k4 = (setpoint(r, t + dt) - (temp + dt * k3)) / tau;
+                temp += dt / 6 * (k1 + 2 * k2 + 2 * k3 + k4);
+                t += dt;
+            }
+            out[i] = temp;
+        }
+        return out;
+    }
+
     /*
-     * Ramp at β from T0 with the wafer at T0: T = T0 + β [t − τ (1 − e^{−t/τ})]; then a hold at T1 entered
-     * with the wafer at T_h: T = T1 − (T1 − T_h) e^{−(t − t_h)/τ} (linear first-order ODE, common practice,
-     * no source). Tolerance 1e-4 K: the wafer state has atol 1e-6 K and rtol 1e-8 (5e-6 K at 500 K).
+     * Ramp up, hold, ramp down (a kink in the setpoint at every breakpoint). RK4 at 0.05 s against τ = 30 s:
+     * its own error is of order (h/τ)^4 · ΔT ≈ 1e-11 K away from the kinks, and a step that straddles a kink
+     * loses its fourth order (error ≈ β h² ≈ 4e-4 K per kink at 10 K/min, so the grid is aligned with the
+     * breakpoints: every step ends on one). Tolerance 1e-4 K: the simulator's closed form is exact, the
+     * comparison measures the reference (measured worst difference printed).
      */
     @Test
-    void lagFollowsTheClosedFormThroughARampAndAHold() {
+    void lagFollowsAnIndependentIntegrationThroughRampsAndHolds() {
         double tau = 30;
-        double beta = 10 / 60.0;
-        Recipe recipe = new Recipe(450, List.of(new Step.Ramp(550, beta), new Step.Hold(600)));
+        Recipe recipe = new Recipe(450, List.of(new Step.Ramp(550, 10 / 60.0), new Step.Hold(600),
+                new Step.Ramp(500, 5 / 60.0), new Step.Hold(300)));
         BakeCase bake = TestCases.kineticsCase(TestCases.singleComponent(new ReactionModel.NthOrder(1), 1e12, 150e3),
                 recipe, null).withWafer(new Wafer(tau, 0));
         CornerResult c = BakeSimulator.simulate(bake, SimulationSettings.defaults().withSampleInterval(5)).corners().get(0);
-        Segment ramp = recipe.segments().get(0);
-        double th = ramp.endTimeS();
-        double waferAtHold = 450 + beta * (th - tau * (1 - Math.exp(-th / tau)));
         int it = c.column("time_s");
         int iw = c.column("wafer_K");
+        double[] times = c.history().stream().mapToDouble(row -> row[it]).toArray();
+        // the breakpoints (600, 1200, 1800, 2100 s) fall on the 5 s grid, and the reference steps to each row
+        double[] reference = integrate(recipe, tau, times, 0.05);
         double worst = 0;
-        for (double[] row : c.history()) {
-            double t = row[it];
-            double expected = t <= th ? 450 + beta * (t - tau * (1 - Math.exp(-t / tau)))
-                    : 550 - (550 - waferAtHold) * Math.exp(-(t - th) / tau);
-            worst = Math.max(worst, Math.abs(row[iw] - expected));
+        for (int i = 0; i < times.length; i++) {
+            worst = Math.max(worst, Math.abs(c.history().get(i)[iw] - reference[i]));
         }
-        System.out.printf("wafer lag: %d rows, worst |ΔT| %.3g K%n", c.history().size(), worst);
-        assertTrue(c.history().size() > 200);
+        System.out.printf("wafer lag: %d rows, worst |ΔT| against RK4 %.3g K%n", times.length, worst);
+        assertTrue(times.length > 400);
         assertTrue(worst <= 1e-4, "worst |ΔT| = " + worst + " K");
-        // the wafer ends the hold 5 K · e^−20 below the setpoint, never above it by more than the integration tolerance (same 1e-4 K; measured 1.1e-6 K)
-        assertEquals(550, c.maxWafer().value(), 1e-4);
-        assertTrue(c.maxWafer().value() <= 550 + 1e-4, "max wafer " + (c.maxWafer().value() - 550) + " K above at " + c.maxWafer().timeS());
+        // the lagging wafer never overshoots the hold setpoint (the reference does not either)
+        assertTrue(c.maxWafer().value() <= 550 + 1e-9, "max wafer " + (c.maxWafer().value() - 550) + " K above");
+        assertTrue(c.maxWafer().value() > 549.99, "the wafer reaches the hold temperature");
     }
 }

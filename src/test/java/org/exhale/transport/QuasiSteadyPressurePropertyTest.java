@@ -40,21 +40,86 @@ class QuasiSteadyPressurePropertyTest {
         return list;
     }
 
+    /**
+     * Molar flow through one straight tube of radius r and length L carrying gas from p_in to p_out,
+     * found by shooting on the isothermal compressible Hagen–Poiseuille law dp/ds = −8 μ R T ṅ/(π r⁴ p)
+     * integrated along the tube by the classical Runge–Kutta method [mol/s].
+     */
+    private static double tubeFlow(double r, double length, double mu, double temp, double pIn, double pOut) {
+        // in terms of the drop still to come, q = p − p_out, so that rounding scales with Δp, not with p
+        double lo = 0;
+        double hi = Math.PI * Math.pow(r, 4) * pIn * pIn / (8 * mu * R * temp * length);   // flow that empties the tube
+        for (int it = 0; it < 200 && hi - lo > 1e-15 * hi; it++) {
+            double flow = 0.5 * (lo + hi);
+            double a = 8 * mu * R * temp * flow / (Math.PI * Math.pow(r, 4));
+            int steps = 20000;
+            double ds = length / steps;
+            double q = pIn - pOut;
+            boolean emptied = false;
+            for (int i = 0; i < steps; i++) {
+                double k1 = -a / (pOut + q);
+                double q2 = q + ds / 2 * k1;
+                if (pOut + q2 <= 0) {
+                    emptied = true;
+                    break;
+                }
+                double k2 = -a / (pOut + q2);
+                double q3 = q + ds / 2 * k2;
+                if (pOut + q3 <= 0) {
+                    emptied = true;
+                    break;
+                }
+                double k3 = -a / (pOut + q3);
+                double q4 = q + ds * k3;
+                if (pOut + q4 <= 0) {
+                    emptied = true;
+                    break;
+                }
+                double k4 = -a / (pOut + q4);
+                q += ds / 6 * (k1 + 2 * k2 + 2 * k3 + k4);
+                if (pOut + q <= 0) {
+                    emptied = true;
+                    break;
+                }
+            }
+            if (emptied || q < 0) {
+                hi = flow;
+            } else {
+                lo = flow;
+            }
+        }
+        return 0.5 * (lo + hi);
+    }
+
+    /*
+     * The viscous flux against a bundle of tortuous capillaries worked here independently: tubes of radius
+     * r_p and length L_e = √τ h (τ is the tortuosity factor of D_eff = ε D/τ, so (L_e/h)² = τ), as many per
+     * area as fill the pore volume, N = ε h/(π r² L_e); each carries the flow of the compressible isothermal
+     * Hagen–Poiseuille law (Bird, Stewart & Lightfoot, Transport Phenomena, 2nd ed. 2002, §2.3 — section from
+     * memory, unconfirmed), found numerically by shooting. The capillary-bundle form of MODEL.md §5 (Mason &
+     * Malinauskas 1983, CHECKS.md D/M) must agree; the geometry is derived in docs/model.md (derived, no
+     * published source). Tolerance: RK4 with 20000 steps (the profile steepens near the outlet when Δp ≫ p_amb; 2000 steps left 3.6e-7) and bisection to 1e-15, the drop still to come the variable so that rounding scales with Δp: measured worst 3.5e-8 (where Δp ≫ p_amb steepens the outlet), so 1e-7.
+     */
     @Test
-    void viscousConductanceMatchesTheDarcyCapillaryBundle() {
-        // Capillary-bundle permeability B0 = ε r²/(8τ) and viscous flux (B0 p/(μRT)) ∇p, Mason & Malinauskas,
-        // Gas Transport in Porous Media: the Dusty-Gas Model (1983) — CHECKS.md D/M. Rounding only: 1e-12.
+    void viscousFluxMatchesABundleOfPoiseuilleTubes() {
         Random rnd = new Random(SEED);
-        for (int i = 0; i < 500; i++) {
-            CapFilm cap = CapFilm.porous(logUniform(rnd, 3e-8, 1e-5), 0.05 + 0.6 * rnd.nextDouble(),
-                    logUniform(rnd, 3e-10, 1e-6));
-            Ambient amb = new Ambient(rnd.nextBoolean() ? 0 : logUniform(rnd, 1, 1e6), logUniform(rnd, 1e-5, 1e-4),
-                    298.15, 101_325);
+        for (int i = 0; i < 40; i++) {
+            double h = logUniform(rnd, 3e-8, 1e-5);
+            double eps = 0.05 + 0.6 * rnd.nextDouble();
+            double r = logUniform(rnd, 3e-10, 1e-6);
+            double tau = 1 + 4 * rnd.nextDouble();
+            CapFilm cap = new CapFilm(h, eps, r, tau, 0, 0);
+            double mu = logUniform(rnd, 1e-5, 1e-4);
+            double pAmb = logUniform(rnd, 1e3, 1e6);
+            Ambient amb = new Ambient(pAmb, mu, 298.15, 101_325);
             GasTransport t = new GasTransport(cap, amb, products(1));
             double temp = 400 + 300 * rnd.nextDouble();
-            double dp = logUniform(rnd, 1e-6, 1e7);
-            double expected = conductance(cap, amb, temp, dp);
-            assertEquals(expected, t.viscousConductance(temp, dp), 1e-12 * expected, "seed " + SEED + ", case " + i);
+            double dp = logUniform(rnd, 1e-2, 1e6);
+            double length = Math.sqrt(tau) * h;
+            double tubes = eps * h / (Math.PI * r * r * length);
+            double expected = tubes * tubeFlow(r, length, mu, temp, pAmb + dp, pAmb);
+            double got = t.viscousConductance(temp, dp) * (pAmb + dp);
+            assertEquals(expected, got, 1e-7 * expected, "seed " + SEED + ", case " + i);
         }
     }
 
