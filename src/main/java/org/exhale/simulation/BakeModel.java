@@ -396,7 +396,14 @@ final class BakeModel {
         out[oStored] = stored;
         out[oGasified] = gasified;
         out[oVented] = vented;
-        if (structure != null) {
+        if (structure != null && !(dp <= InstantLimits.BEYOND_ANY_FILM_PA)) {
+            // a (nearly) sealed cap: the pressure is beyond any film, the plate formulas overflow; the thermal
+            // stress stands, every pressure-driven response is unbounded and its limit fails
+            CapResponse r0 = structure.evaluate(temp, 0);
+            java.util.Arrays.fill(out, oFilmStress, oCompression + 1, Double.POSITIVE_INFINITY);
+            out[oFilmStress] = r0.thermalStressPa();
+            out[oCompression] = r0.bucklingCompressionPa();
+        } else if (structure != null) {
             CapResponse r = structure.evaluate(temp, dp);
             out[oFilmStress] = r.thermalStressPa();
             out[oFilmStress + 1] = r.bendingStressPa();
