@@ -582,8 +582,10 @@ public final class CaseYamlReader {
             throw t.get("max_steps").error(ErrorKind.BAD_NUMBER, "max_steps must be a whole number");
         }
         double unload = t.quantity("unload", UnitKind.TEMPERATURE, Double.NaN, 1, 3000, "a temperature such as 150 C");
+        double overshoot = t.quantity("overshoot", UnitKind.TEMPERATURE_DIFFERENCE, 0, 0, 50,
+                "a temperature difference in [0, 50] K such as 2 K");
         t.finish();
-        return build(t, () -> new Tool(up, down, sp, ts, ms, n, unload));
+        return build(t, () -> new Tool(up, down, sp, ts, ms, n, unload, overshoot));
     }
 
     // ---------------------------------------------------------------- chamber

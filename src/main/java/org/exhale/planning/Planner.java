@@ -61,7 +61,7 @@ public final class Planner {
         this.bake = bake;
         this.tool = tool;
         this.startK = bake.recipeStartK();
-        this.capK = floorSetpoint(bake.limits().ceilingK() - bake.wafer().spreadK(), tool.setpointStepK());
+        this.capK = floorSetpoint(tool.highestSetpointK(bake.limits().ceilingK(), bake.wafer().spreadK()), tool.setpointStepK());
         this.search = new SimulationSettings(0, 1e-7, 1e-5, GasRegime.QUASI_STEADY, false);
     }
 
