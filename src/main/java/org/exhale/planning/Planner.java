@@ -220,7 +220,7 @@ public final class Planner {
                         notes.add("final hold lengthened " + ext + " time(s) so the target is met at its end");
                     }
                     return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
-                            Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null);
+                            Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null, rideS);
                 }
                 lastProof = proof;
                 if (!others.isEmpty()) {
@@ -349,7 +349,7 @@ public final class Planner {
                     notes.add("final hold lengthened " + ext + " time(s) so the target is met at its end");
                 }
                 return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
-                        Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null);
+                        Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null, rideS);
             }
             double lateBy = Double.isNaN(proof.timeToTargetS()) ? 0.01 * holdEnd : proof.timeToTargetS() - holdEnd;
             recipe = extendFinalHold(recipe, Math.max(Math.max(tool.timeStepS(), 1), lateBy));
@@ -906,7 +906,7 @@ public final class Planner {
 
     private PlanResult infeasible(LowerBound.Result bound, boolean rigorous, String limit, String reason, String suggestion) {
         return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
-                new PlanResult.Infeasibility(limit, reason, Double.NaN, Double.NaN, suggestion));
+                new PlanResult.Infeasibility(limit, reason, Double.NaN, Double.NaN, suggestion), rideS);
     }
 
     private PlanResult diagnose(LowerBound.Result bound, boolean rigorous, Eval best) {
@@ -934,7 +934,7 @@ public final class Planner {
             }
             return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
                     new PlanResult.Infeasibility("residue", "the residue target is not reached under the ceiling",
-                            bestU, LONG_HOLD_S, suggestion));
+                            bestU, LONG_HOLD_S, suggestion), rideS);
         }
         Margin proofWorst = lastProof == null ? null
                 : lastProof.violated().stream().filter(m -> !m.limit().equals("residue")).findFirst().orElse(null);
@@ -957,7 +957,7 @@ public final class Planner {
         String reason = atStart < 1 ? "the '" + limit + "' limit fails already at the start temperature"
                 : "no recipe tried keeps the '" + limit + "' limit (best margin " + String.format(java.util.Locale.ROOT, "%.3g", best.minMargin) + ")";
         return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
-                new PlanResult.Infeasibility(limit, reason, bestU, LONG_HOLD_S, suggestion));
+                new PlanResult.Infeasibility(limit, reason, bestU, LONG_HOLD_S, suggestion), rideS);
     }
 
     private double[] initialAlpha() {
