@@ -95,7 +95,7 @@ final class CornerRun {
     CornerResult run() {
         List<Segment> segments = recipe.segments();
         double[] y = model.initialState(recipe.startK());
-        double[] absTol = absoluteTolerances();
+        double[] absTol = model.absoluteTolerances(gasScale);
         double rtol = settings.relativeTolerance();
         double hNext = 0;
         RosenbrockIntegrator stiff = null;
@@ -205,27 +205,6 @@ final class CornerRun {
     private static double[] fill(double v, int n) {
         double[] a = new double[n];
         java.util.Arrays.fill(a, v);
-        return a;
-    }
-
-    private double[] absoluteTolerances() {
-        double[] a = new double[model.dim];
-        for (int j = 0; j < model.k; j++) {
-            a[j] = 1e-12;
-        }
-        if (model.regime == GasRegime.FULL_GAS) {
-            for (int j = 0; j < model.k; j++) {
-                a[model.iGas + j] = Math.max(1e-7 * gasScale, 1e-30);
-                a[model.iVent + j] = 1e-12;
-            }
-        }
-        a[model.iDose] = 1e-6;
-        if (model.iChamber >= 0) {
-            for (int j = 0; j < model.k; j++) {
-                a[model.iChamber + j] = 1e-14;
-                a[model.iExhaust + j] = 1e-12;
-            }
-        }
         return a;
     }
 
