@@ -16,9 +16,35 @@ import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 
-/** Writes the headline figures and margins of a simulated bake as JSON (non-finite numbers as null). */
+/**
+ * Writes the headline figures and margins of a simulated bake as JSON (non-finite numbers as null).
+ * Every JSON file exhale writes goes through {@link #toJson}: decimal numbers are written with nine
+ * significant digits (as in the CSV files), so binary noise such as 0.30000000000000004 or
+ * 1749.9999999999998 never reaches a reader; nine digits keep far more than any input carries.
+ * Values that feed a later computation (recipes, kinetics) go to YAML and CSV files, not to JSON.
+ */
 public final class SummaryJsonWriter {
-    private static final ObjectMapper MAPPER = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+    private static final ObjectMapper MAPPER = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT)
+            .registerModule(new com.fasterxml.jackson.databind.module.SimpleModule("exhale-numbers")
+                    .addSerializer(Double.class, new RoundedDouble()).addSerializer(double.class, new RoundedDouble()));
+
+    /** Nine significant digits, the CSV files' precision; integral values keep one decimal (1513.0). */
+    private static final class RoundedDouble extends com.fasterxml.jackson.databind.ser.std.StdSerializer<Double> {
+        RoundedDouble() {
+            super(Double.class);
+        }
+
+        @Override
+        public void serialize(Double v, com.fasterxml.jackson.core.JsonGenerator g,
+                              com.fasterxml.jackson.databind.SerializerProvider p) throws java.io.IOException {
+            if (v == null || !Double.isFinite(v)) {
+                g.writeNull();
+                return;
+            }
+            String t = Numbers.csv(v == 0 ? 0.0 : v);
+            g.writeNumber(t.contains(".") || t.contains("e") ? t : t + ".0");
+        }
+    }
 
     private SummaryJsonWriter() {
     }

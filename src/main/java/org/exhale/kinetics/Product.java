@@ -38,8 +38,8 @@ public record Product(double molarMassKgPerMol, double kineticDiameterM, double 
             throw new IllegalArgumentException("product kinetic diameter must be in (0, 100) nm, got "
                     + kineticDiameterM * 1e9 + " nm");
         }
-        if (!(molecularDiffusivityRefM2PerS > 0 && molecularDiffusivityRefM2PerS < 1)) {
-            throw new IllegalArgumentException("product molecular diffusivity must be in (0, 1) m2/s, got "
+        if (!(molecularDiffusivityRefM2PerS > 0 && molecularDiffusivityRefM2PerS <= 1)) {
+            throw new IllegalArgumentException("product molecular diffusivity must be in (0, 1] m2/s, got "
                     + molecularDiffusivityRefM2PerS);
         }
     }

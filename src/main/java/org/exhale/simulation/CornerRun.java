@@ -109,7 +109,7 @@ final class CornerRun {
     CornerResult run() {
         List<Segment> segments = recipe.segments();
         double[] y = model.initialState(recipe.startK());
-        double[] absTol = absoluteTolerances();
+        double[] absTol = model.absoluteTolerances(gasScale);
         double rtol = settings.relativeTolerance();
         double hNext = 0;
         RosenbrockIntegrator stiff = null;
@@ -148,14 +148,20 @@ final class CornerRun {
                 }
                 continue;
             }
-            if (useRosenbrock) {
-                hNext = stiff.integrate(model::derivatives, seg.startTimeS(), y, seg.endTimeS(), hNext, this::onStep);
-            } else {
-                explicit.clearStepHandlers();
-                explicit.addStepHandler(interpolator -> onStep(new HipparchusStep(interpolator)));
-                ODEStateAndDerivative end = explicit.integrate(ode, new ODEState(seg.startTimeS(), y), seg.endTimeS());
-                y = end.getPrimaryState();
-                count[0] += explicit.getEvaluations();
+            try {
+                if (useRosenbrock) {
+                    hNext = stiff.integrate(model::derivatives, seg.startTimeS(), y, seg.endTimeS(), hNext, this::onStep);
+                } else {
+                    explicit.clearStepHandlers();
+                    explicit.addStepHandler(interpolator -> onStep(new HipparchusStep(interpolator)));
+                    ODEStateAndDerivative end = explicit.integrate(ode, new ODEState(seg.startTimeS(), y), seg.endTimeS());
+                    y = end.getPrimaryState();
+                    count[0] += explicit.getEvaluations();
+                }
+            } catch (RosenbrockIntegrator.StepFailure e) {
+                throw outOfReach(e.time, stateName(e.index), e.overflow, e);
+            } catch (org.hipparchus.exception.MathIllegalStateException e) {
+                throw outOfReach(seg.startTimeS(), "the decomposition kinetics", false, e);
             }
             // segment end always recorded
             double[] last = samples[samplesPerStep];
@@ -184,30 +190,37 @@ final class CornerRun {
                 end[model.oUnconverted], unconvertedAtCheckpoint, end[model.oDose], balance, columns, history, evaluations);
     }
 
+    /** What state component i means, in the words of the case file. */
+    private String stateName(int i) {
+        List<String> names = model.componentNames();
+        if (i < model.k) {
+            return "the conversion of component '" + names.get(i) + "'";
+        }
+        if (model.iGas >= 0 && i >= model.iGas && i < model.iGas + model.k) {
+            return "the gas of component '" + names.get(i - model.iGas) + "' trapped under the cap";
+        }
+        if (model.iVent >= 0 && i >= model.iVent && i < model.iVent + model.k) {
+            return "the gas of component '" + names.get(i - model.iVent) + "' vented through the cap";
+        }
+        if (i == model.iDose) {
+            return "the thermal dose";
+        }
+        return "the product concentration in the chamber";
+    }
+
+    private OutOfReach outOfReach(double t, String what, boolean overflow, Throwable cause) {
+        String when = String.format(java.util.Locale.ROOT, "at t = %.6g s (%s corner)", t, corner);
+        return new OutOfReach((overflow
+                ? "the model overflows: " + what + " stops being finite " + when
+                  + "; the cap is effectively sealed or the rates are beyond the model's range"
+                : "the model cannot resolve " + what + " " + when
+                  + ": it changes faster than the time resolution of the simulation (about 1e-14 of the time) allows")
+                + "; such a case is outside the model's reach, check the kinetics and cap values", cause);
+    }
+
     private static double[] fill(double v, int n) {
         double[] a = new double[n];
         java.util.Arrays.fill(a, v);
-        return a;
-    }
-
-    private double[] absoluteTolerances() {
-        double[] a = new double[model.dim];
-        for (int j = 0; j < model.k; j++) {
-            a[j] = 1e-12;
-        }
-        if (model.regime == GasRegime.FULL_GAS) {
-            for (int j = 0; j < model.k; j++) {
-                a[model.iGas + j] = Math.max(1e-7 * gasScale, 1e-30);
-                a[model.iVent + j] = 1e-12;
-            }
-        }
-        a[model.iDose] = 1e-6;
-        if (model.iChamber >= 0) {
-            for (int j = 0; j < model.k; j++) {
-                a[model.iChamber + j] = 1e-14;
-                a[model.iExhaust + j] = 1e-12;
-            }
-        }
         return a;
     }
 
