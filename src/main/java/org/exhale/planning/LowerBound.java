@@ -5,37 +5,93 @@ import org.exhale.simulation.BakeCase;
 import org.exhale.simulation.InstantLimits;
 
 /**
- * The lower bound on the bake time of MODEL.md §9. At time t and conversion α no recipe converts
- * component j at a corner faster than r*(α, t) = max{k_j(T) f_j(α) : T ≤ T_cap(t) + offset, every
- * monotone instantaneous limit holds}, so by the comparison lemma α_j(t) ≤ b(t) with
- * db/dt = r*(b, t); the bake cannot end before every corner's Σ w_j (1 − b_j(t)) reaches the target.
- * Strengthenings of the contract, each keeping the bound valid (docs/model.md): all bounds are
- * integrated together; the other components generate at least their floor of gas instead of none;
- * and both wafer corners are bounded together, a temperature being admissible at one corner only if
- * the limits also hold at the other corner's temperature (a fixed offset away) with that corner's
- * floor of gas. Only limits that tighten as gas is added are used; limits that depend on history
- * (thermal dose, chamber) are left out. The pressure-driven limits are evaluated quasi-steadily: the
- * bound is rigorous only where the gas is quasi-steady; otherwise the ceiling-only bound is
- * rigorous and is reported beside it. The highest admissible temperature is found by scanning down
- * in 2 K steps and bisecting, so a feasible band narrower than 2 K above the one found could be missed.
+ * The lower bounds on the bake time of MODEL.md §9, each labelled with whether it is rigorous for
+ * the case's gas regime. Three are computed (proofs in docs/model.md, "Lower bounds"):
+ * <ul>
+ *   <li><b>ceiling</b>: the cold corner under the lagged temperature cap, ignoring every other limit;
+ *       rigorous in any regime ({@link VentBound});</li>
+ *   <li><b>vent capacity</b>: the gas made cannot exceed what the cavity can store plus what the cap
+ *       can vent at the admissible pressure; rigorous in any regime ({@link VentBound});</li>
+ *   <li><b>joint</b>: a minimum-time programme over all components' conversions with every monotone
+ *       instantaneous limit at both corners, the gas taken quasi-steady; rigorous where the gas is
+ *       quasi-steady, otherwise reported as an estimate ({@link JointBound}).</li>
+ * </ul>
+ * The reported bound is the largest rigorous one. Every discretisation error of the three lowers
+ * them. The one premise not proved by the code is that at fixed conversions the admissible
+ * temperatures form an interval below the highest one found (the bisection of
+ * {@link #highestFeasible}); docs/model.md says when that holds.
  */
 public final class LowerBound {
-    /** The bound with every instantaneous limit, the ceiling-only bound, and the component that finishes last. */
-    public record Result(double boundS, double ceilingOnlyBoundS, int component) {
+    /** One bound: its name, value [s] (+∞ beyond the 2-day horizon), whether it is rigorous here, and what it rests on. */
+    public record Estimate(String name, double seconds, boolean rigorous, String basis) {
     }
+
+    /**
+     * The bounds of a case.
+     *
+     * @param boundS            the largest rigorous bound [s]
+     * @param ceilingOnlyBoundS the ceiling-only bound [s] (rigorous in any regime)
+     * @param component         the component used as the joint bound's clock (−1 if none)
+     * @param rigorous          whether {@code boundS} is rigorous (always: it is the largest rigorous bound)
+     * @param quasiSteady       whether the gas was taken to be quasi-steady (the joint bound is rigorous then)
+     * @param estimates         every bound computed, with its label
+     * @param computeS          wall time spent on the bounds [s]
+     */
+    public record Result(double boundS, double ceilingOnlyBoundS, int component, boolean rigorous, boolean quasiSteady,
+                         java.util.List<Estimate> estimates, double computeS) {
+        /** The named bound, or null. */
+        public Estimate estimate(String name) {
+            return estimates.stream().filter(e -> e.name().equals(name)).findFirst().orElse(null);
+        }
+    }
+
+    /** Grid resolution of the joint bound: relative change of f between clock levels and across a cell. */
+    static final double CLOCK_DELTA = 0.05;
+    static final double CELL_DELTA = 0.03;
 
     private LowerBound() {
     }
 
+    /** The bounds, with the gas regime found by one simulation of the fastest ramp to the cap (as the planner does). */
     public static Result compute(BakeCase bake, Tool tool) {
+        double capK = bake.limits().ceilingK() - bake.wafer().spreadK();
+        org.exhale.recipe.Recipe probe = new org.exhale.recipe.Recipe(bake.recipeStartK(), java.util.List.of(
+                new org.exhale.recipe.Step.Ramp(Math.max(capK, bake.recipeStartK() + 1), tool.maxRampUpKPerS()),
+                new org.exhale.recipe.Step.Hold(600)));
+        var r = org.exhale.simulation.BakeSimulator.simulate(bake.withRecipe(probe),
+                org.exhale.simulation.SimulationSettings.defaults().withSampleInterval(0));
+        return compute(bake, tool, r.regime() == org.exhale.simulation.GasRegime.QUASI_STEADY);
+    }
+
+    /**
+     * The bounds of a case whose gas is ({@code quasiSteady}) or is not quasi-steady.
+     */
+    public static Result compute(BakeCase bake, Tool tool, boolean quasiSteady) {
+        long t0 = System.nanoTime();
         double spread = bake.wafer().spreadK();
         TemperatureCap cap = new TemperatureCap(bake.recipeStartK(), bake.limits().ceilingK() - spread,
                 tool.maxRampUpKPerS(), bake.wafer().lagS());
         InstantLimits limits = new InstantLimits(bake);
-        double[] offsets = spread > 0 ? new double[]{-spread, spread} : new double[]{0};
-        double[] r = integrate(bake, limits, cap, offsets, true);
-        double[] c = integrate(bake, limits, cap, offsets, false);
-        return new Result(r[0], c[0], (int) r[1]);
+        java.util.List<Estimate> list = new java.util.ArrayList<>();
+        VentBound.Outcome v = VentBound.compute(bake, limits, cap, spread, true);
+        list.add(new Estimate("ceiling", v.ceilingS(), true,
+                "fastest ramp to the ceiling and hold, cold corner; every other limit left out"));
+        if (v.ventS() > 0) {
+            list.add(new Estimate("vent_capacity", v.ventS(), true,
+                    "gas made <= most the cavity can store + most the cap can vent at the admissible pressure; any gas regime"));
+        }
+        JointBound.Outcome j = new JointBound(bake, limits, cap, spread, CLOCK_DELTA, CELL_DELTA).compute();
+        list.add(new Estimate("joint", j.boundS(), quasiSteady, quasiSteady
+                ? "all components and both corners jointly, every monotone instantaneous limit, quasi-steady gas"
+                : "as for quasi-steady gas; the gas here is stored (not quasi-steady), so this is an estimate"));
+        double best = 0;
+        for (Estimate e : list) {
+            if (e.rigorous()) {
+                best = Math.max(best, e.seconds());
+            }
+        }
+        return new Result(best, v.ceilingS(), j.clock(), true, quasiSteady, java.util.List.copyOf(list),
+                (System.nanoTime() - t0) / 1e9);
     }
 
     /**
@@ -189,41 +245,91 @@ public final class LowerBound {
     }
 
     /**
-     * The highest T ≤ top at which margin(T) ≥ 1, to within 1e-3 K and rounded up (so the bound
-     * stays on the safe side); NaN if none above floor. The search starts from {@code guess} (the
-     * answer of the previous call, NaN for none) and steps 2 K at a time before bisecting.
+     * The highest T ≤ top at which margin(T) ≥ 1, rounded up: the answer is the infeasible end of a
+     * bracket at most 0.005 K wide (so the bound stays on the safe side, given that the admissible
+     * temperatures below top form an interval). NaN if none above floor. The search starts from
+     * {@code guess} (NaN for none: 2 K below top), brackets in steps that double from 0.25 K, and
+     * closes the bracket by the Illinois variant of regula falsi on ln margin.
      */
     static double highestFeasible(java.util.function.DoubleUnaryOperator margin, double top, double floor, double guess) {
-        if (margin.applyAsDouble(top) >= 1) {
-            return top;
+        double g = Double.isNaN(guess) ? top - 2 : Math.min(guess, top);
+        if (g >= top - 1e-9 || !(g > floor)) {
+            if (margin.applyAsDouble(top) >= 1) {
+                return top;
+            }
+            g = Math.max(floor + 1e-6, Math.min(top - 2, g));
         }
-        double hi;
+        double mg = margin.applyAsDouble(g);
         double lo;
-        double g = Double.isNaN(guess) ? top - 2 : Math.min(guess, top - 1e-3);
-        if (g > floor && margin.applyAsDouble(g) >= 1) {
+        double hi;
+        double mlo;
+        double mhi;
+        double step = 0.25;
+        if (mg >= 1) {
             lo = g;
-            hi = Math.min(g + 2, top);
-            while (hi < top && margin.applyAsDouble(hi) >= 1) {
-                lo = hi;
-                hi = Math.min(hi + 2, top);
+            mlo = mg;
+            while (true) {
+                double x = Math.min(lo + step, top);
+                double mx = margin.applyAsDouble(x);
+                if (mx < 1) {
+                    hi = x;
+                    mhi = mx;
+                    break;
+                }
+                if (x >= top) {
+                    return top;
+                }
+                lo = x;
+                mlo = mx;
+                step *= 2;
             }
         } else {
             hi = g;
-            lo = g - 2;
-            while (lo > floor && margin.applyAsDouble(lo) < 1) {
-                hi = lo;
-                lo -= 2;
-            }
-            if (lo <= floor) {
-                return Double.NaN;
+            mhi = mg;
+            while (true) {
+                double x = hi - step;
+                if (x <= floor) {
+                    return Double.NaN;
+                }
+                double mx = margin.applyAsDouble(x);
+                if (mx >= 1) {
+                    lo = x;
+                    mlo = mx;
+                    break;
+                }
+                hi = x;
+                mhi = mx;
+                step *= 2;
             }
         }
-        while (hi - lo > 1e-3) {
-            double mid = 0.5 * (lo + hi);
-            if (margin.applyAsDouble(mid) >= 1) {
-                lo = mid;
+        // Illinois regula falsi on y = ln margin (bisection where y is not finite)
+        double ylo = Math.log(mlo);
+        double yhi = Math.log(mhi);
+        int side = 0;
+        while (hi - lo > 0.005) {
+            double x;
+            if (Double.isFinite(ylo) && Double.isFinite(yhi) && ylo > yhi) {
+                x = lo + (hi - lo) * ylo / (ylo - yhi);
+                x = Math.min(Math.max(x, lo + 0.02 * (hi - lo)), hi - 0.02 * (hi - lo));
             } else {
-                hi = mid;
+                x = 0.5 * (lo + hi);
+            }
+            double mx = margin.applyAsDouble(x);
+            double y = Math.log(mx);
+            if (mx >= 1) {
+                lo = x;
+                ylo = y;
+                if (side == 1) {
+                    yhi *= 0.5;
+                }
+                side = 1;
+            } else {
+                hi = x;
+                yhi = y;
+                if (side == -1) {
+                    ylo *= 0.5;
+                }
+                side = -1;
             }
         }
         return hi;
