@@ -162,8 +162,12 @@ final class ReducedTime {
             return 1;
         }
         if (xs != null) {
+            // lower(α) = lo[i] on [xs[i], xs[i+1]): the largest α with lower(α) ≤ v lies just below the first xs whose lo exceeds v
             int i = java.util.Arrays.binarySearch(lo, v);
-            int at = i >= 0 ? i : -i - 1;
+            int at = i >= 0 ? i + 1 : -i - 1;
+            while (at < lo.length && lo[at] <= v) {
+                at++;
+            }
             return at >= xs.length ? 1 : xs[at];
         }
         double a = inverseAbsolute((v + SAFE * base) / (1 - SAFE) + base);
