@@ -8,8 +8,8 @@ import org.exhale.simulation.BakeCase;
 import org.exhale.simulation.InstantLimits;
 
 /**
- * A joint minimum-time lower bound over the conversions of every component (k ≤ 3), for the
- * quasi-steady gas regime (MODEL.md §9; the proof is in docs/model.md, "Lower bounds").
+ * A joint minimum-time lower bound over the conversions of the components (two of them jointly; with
+ * three, the third is left out of the state), for the quasi-steady gas regime (MODEL.md §9; the proof is in docs/model.md, "Lower bounds").
  *
  * <p>The state is the hot corner's conversions. The component with the smallest activation energy
  * is the clock: its conversion α_q rises strictly, so every trajectory crosses each level a_i of a
@@ -88,12 +88,15 @@ final class JointBound {
             }
         }
         this.q = clock;
-        this.others = new int[k - 1];
-        for (int j = 0, o = 0; j < k; j++) {
-            if (j != q) {
-                others[o++] = j;
+        // the clock and one other component: with three, the one of larger weight; the third is left out of the state
+        // (its gas taken as none and its residue as gone, both of which only lower the bound)
+        int other = -1;
+        for (int j = 0; j < k; j++) {
+            if (j != q && (other < 0 || w[j] > w[other])) {
+                other = j;
             }
         }
+        this.others = other < 0 ? new int[0] : new int[]{other};
         this.levels = grid(rt[q], top(q), clockDelta, false);
         this.cells = new double[others.length][];
         this.stride = new int[others.length];
