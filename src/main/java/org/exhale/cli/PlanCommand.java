@@ -90,6 +90,8 @@ final class PlanCommand implements Callable<Integer> {
         m.put("total_with_cooldown_s", SummaryJsonWriter.num(p.totalS()));
         m.put("lower_bound_s", SummaryJsonWriter.num(p.lowerBound().boundS()));
         m.put("bound_ratio", SummaryJsonWriter.num(p.boundRatio()));
+        m.put("ride_s", SummaryJsonWriter.num(p.rideS()));
+        m.put("ride_ratio", SummaryJsonWriter.num(p.rideRatio()));
         m.put("lower_bound_rigorous", p.boundRigorous());
         m.put("lower_bound_kind", boundKind(p.lowerBound()));
         m.put("ceiling_only_lower_bound_s", SummaryJsonWriter.num(p.lowerBound().ceilingOnlyBoundS()));
@@ -183,6 +185,10 @@ final class PlanCommand implements Callable<Integer> {
                     .append(e.rigorous() ? "" : " (estimate)");
         }
         sb.append("  bounds: ").append(others).append('\n');
+        if (Double.isFinite(p.rideS())) {
+            sb.append(String.format(Locale.ROOT, "Closed-loop ride (unlimited steps): %.1f min; planned/ride = %s%n",
+                    p.rideS() / 60, Numbers.sig(p.rideRatio(), 4)));
+        }
         sb.append("Verified: ").append(p.verified() ? "yes, the rounded recipe meets every limit at every corner" : "NO").append('\n');
         for (Margin m : p.verification().margins()) {
             sb.append("  ").append(TextSummary.line(m)).append('\n');

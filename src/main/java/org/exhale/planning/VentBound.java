@@ -173,7 +173,7 @@ final class VentBound {
                 for (int j = 0; j < k; j++) {
                     // D_eff rises with T (Knudsen √T, molecular T^1.75), 1/T falls, Π rises: each part at its worst end
                     kmax = Math.max(kmax, transport.effectiveDiffusivity(j, hi) / (R * lo * h)
-                            + transport.solidPermeability(hi) / h);
+                            + transport.solidPermeability(j, hi) / h);
                 }
                 kUp[i] = kmax * (1 + 1e-9);
                 // P_adm between samples: the larger neighbour (P_adm varies smoothly; see docs/model.md)
