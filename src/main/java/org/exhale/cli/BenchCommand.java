@@ -12,6 +12,7 @@ import java.util.function.Supplier;
 
 import org.exhale.io.CaseFile;
 import org.exhale.io.CaseYamlReader;
+import org.exhale.planning.LowerBound;
 import org.exhale.planning.Planner;
 import org.exhale.simulation.BakeCase;
 import org.exhale.simulation.BakeSimulator;
@@ -20,9 +21,11 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 
 @Command(name = "bench", mixinStandardHelpOptions = true,
-        header = "Measure simulation and planning speed on the demo cases.",
+        header = "Measure simulation, planning and lower-bound speed on the demo and bench cases.",
         description = {"Times, side by side in one run, one simulation of each demo case (with and without the cap "
                 + "mechanics) and one plan of each, after a warm-up; prints the median, the quartiles and the ratios. "
+                + "Then the lower bounds of the demo cases and of the bench cases (data/bench), each marked rigorous or "
+                + "an estimate for the case's gas regime, with the median time to compute them. "
                 + "The machines are noisy: compare figures from one run only."})
 final class BenchCommand implements Callable<Integer> {
     @Option(names = "--data", paramLabel = "DIR", defaultValue = "data/demo", description = "Folder of the demo cases.")
@@ -33,6 +36,13 @@ final class BenchCommand implements Callable<Integer> {
 
     @Option(names = "--plan-repeats", defaultValue = "5", description = "Timed repetitions of each plan (default ${DEFAULT-VALUE}).")
     int planRepeats;
+
+    @Option(names = "--bench-data", paramLabel = "DIR", defaultValue = "data/bench",
+            description = "Folder of the extra bench cases for the lower bounds (default ${DEFAULT-VALUE}).")
+    Path benchData;
+
+    @Option(names = "--bound-repeats", defaultValue = "5", description = "Timed repetitions of each lower bound (default ${DEFAULT-VALUE}).")
+    int boundRepeats;
 
     @Override
     public Integer call() {
@@ -80,7 +90,48 @@ final class BenchCommand implements Callable<Integer> {
         ratios.add(String.format(Locale.ROOT, "mechanics cost, dense-disc: %.2fx", med.get("simulate dense-disc (full gas)")
                 / med.get("simulate dense-disc without mechanics")));
         ratios.forEach(System.out::println);
+        bounds(List.of(data.resolve("porous-line.yaml"), data.resolve("dense-disc.yaml"),
+                benchData.resolve("one-component-porous.yaml"), benchData.resolve("two-component-stored.yaml")));
         return Main.OK;
+    }
+
+    /**
+     * The lower bounds of each case, each with its label (rigorous or an estimate for this gas regime), and the
+     * median time to compute them all (the regime is found once beforehand by the planner's probe).
+     */
+    private void bounds(List<Path> files) {
+        System.out.println();
+        System.out.printf(Locale.ROOT, "%-46s %-12s %9s %9s %9s %9s %-14s %9s%n", "lower bounds (min; * = estimate)", "gas",
+                "ceiling", "vent", "joint", "bound", "bound from", "ms");
+        for (Path f : files) {
+            if (!java.nio.file.Files.isRegularFile(f)) {
+                System.out.println(f + ": missing, skipped");
+                continue;
+            }
+            CaseFile cf = CaseYamlReader.read(f);
+            boolean qs = LowerBound.compute(cf.bake(), cf.tool()).quasiSteady();
+            LowerBound.compute(cf.bake(), cf.tool(), qs);   // warm-up
+            double[] ms = new double[Math.max(boundRepeats, 1)];
+            LowerBound.Result r = null;
+            for (int i = 0; i < ms.length; i++) {
+                long t0 = System.nanoTime();
+                r = LowerBound.compute(cf.bake(), cf.tool(), qs);
+                ms[i] = (System.nanoTime() - t0) / 1e6;
+            }
+            Arrays.sort(ms);
+            String name = f.getFileName().toString().replace(".yaml", "");
+            System.out.printf(Locale.ROOT, "%-46s %-12s %9s %9s %9s %9s %-14s %9.1f%n", name, qs ? "quasi-steady" : "stored",
+                    cell(r.estimate("ceiling")), cell(r.estimate("vent_capacity")), cell(r.estimate("joint")),
+                    String.format(Locale.ROOT, "%.1f", r.boundS() / 60), PlanCommand.boundKind(r), quantile(ms, 0.5));
+        }
+    }
+
+    private static String cell(LowerBound.Estimate e) {
+        if (e == null) {
+            return "-";
+        }
+        String v = Double.isFinite(e.seconds()) ? String.format(Locale.ROOT, "%.1f", e.seconds() / 60) : "inf";
+        return e.rigorous() ? v : v + "*";
     }
 
     private static BakeCase noMechanics(BakeCase b) {

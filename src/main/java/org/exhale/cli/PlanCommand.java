@@ -16,6 +16,7 @@ import org.exhale.io.Numbers;
 import org.exhale.io.OutputFolder;
 import org.exhale.io.RecipeCsvWriter;
 import org.exhale.io.SummaryJsonWriter;
+import org.exhale.planning.LowerBound;
 import org.exhale.planning.PlanResult;
 import org.exhale.planning.Planner;
 import org.exhale.recipe.Recipe;
@@ -92,11 +93,23 @@ final class PlanCommand implements Callable<Integer> {
         m.put("ride_s", SummaryJsonWriter.num(p.rideS()));
         m.put("ride_ratio", SummaryJsonWriter.num(p.rideRatio()));
         m.put("lower_bound_rigorous", p.boundRigorous());
+        m.put("lower_bound_kind", boundKind(p.lowerBound()));
         m.put("ceiling_only_lower_bound_s", SummaryJsonWriter.num(p.lowerBound().ceilingOnlyBoundS()));
+        List<Object> bounds = new ArrayList<>();
+        for (LowerBound.Estimate e : p.lowerBound().estimates()) {
+            Map<String, Object> b = new LinkedHashMap<>();
+            b.put("name", e.name());
+            b.put("seconds", SummaryJsonWriter.num(e.seconds()));
+            b.put("rigorous", e.rigorous());
+            b.put("basis", e.basis());
+            bounds.add(b);
+        }
+        m.put("lower_bounds", bounds);
         m.put("lower_bound_note", p.boundRigorous()
-                ? "quasi-steady gas: the bound holds for every recipe"
-                : "the gas is not quasi-steady here, so the bound with pressure-driven limits is an estimate; "
-                  + "ceiling_only_lower_bound_s is rigorous");
+                ? "lower_bound_s is the largest rigorous bound (" + boundKind(p.lowerBound()) + "): no recipe within the limits "
+                  + "can be shorter" + (p.lowerBound().quasiSteady() ? "" : "; the gas is stored here (not quasi-steady), so the "
+                  + "joint bound is only an estimate")
+                : "the bound is an estimate here, not a guarantee");
         if (p.feasible()) {
             m.put("margins", SummaryJsonWriter.margins(p.verification().margins()));
             List<Object> steps = new ArrayList<>();
@@ -126,6 +139,16 @@ final class PlanCommand implements Callable<Integer> {
         return m;
     }
 
+    /** The name of the bound that gives lower_bound_s. */
+    static String boundKind(LowerBound.Result r) {
+        for (LowerBound.Estimate e : r.estimates()) {
+            if (e.rigorous() && e.seconds() == r.boundS()) {
+                return e.name();
+            }
+        }
+        return "none";
+    }
+
     static String text(PlanResult p, double seconds) {
         StringBuilder sb = new StringBuilder();
         double c0 = PhysicalConstants.ZERO_CELSIUS_K;
@@ -153,9 +176,15 @@ final class PlanCommand implements Callable<Integer> {
         }
         sb.append(String.format(Locale.ROOT, "Planned time to target (end of final hold): %.1f min; with cool-down %.1f min%n",
                 p.durationS() / 60, p.totalS() / 60));
-        sb.append(String.format(Locale.ROOT, "Lower bound: %.1f min; planned/bound = %s%s%n", p.lowerBound().boundS() / 60,
-                Numbers.sig(p.boundRatio(), 4), p.boundRigorous() ? "" : " (bound approximate: gas not quasi-steady; ceiling-only bound "
-                        + Numbers.fixed(p.lowerBound().ceilingOnlyBoundS() / 60, 1) + " min)"));
+        sb.append(String.format(Locale.ROOT, "Lower bound: %.1f min (%s, %s); planned/bound = %s%n", p.lowerBound().boundS() / 60,
+                boundKind(p.lowerBound()), p.boundRigorous() ? "rigorous" : "an estimate", Numbers.sig(p.boundRatio(), 4)));
+        StringBuilder others = new StringBuilder();
+        for (LowerBound.Estimate e : p.lowerBound().estimates()) {
+            others.append(others.length() == 0 ? "" : ", ").append(e.name()).append(' ')
+                    .append(Double.isFinite(e.seconds()) ? Numbers.fixed(e.seconds() / 60, 1) + " min" : "beyond 2 days")
+                    .append(e.rigorous() ? "" : " (estimate)");
+        }
+        sb.append("  bounds: ").append(others).append('\n');
         if (Double.isFinite(p.rideS())) {
             sb.append(String.format(Locale.ROOT, "Closed-loop ride (unlimited steps): %.1f min; planned/ride = %s%n",
                     p.rideS() / 60, Numbers.sig(p.rideRatio(), 4)));

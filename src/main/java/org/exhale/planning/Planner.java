@@ -74,8 +74,8 @@ public final class Planner {
     }
 
     private PlanResult run() {
-        LowerBound.Result bound = LowerBound.compute(bake, tool);
-        boolean rigorous = quasiSteady();
+        LowerBound.Result bound = LowerBound.compute(bake, tool, quasiSteady());
+        boolean rigorous = bound.rigorous();
         if (capK <= startK) {
             return infeasible(bound, rigorous, "ceiling", "the ceiling less the spread is not above the start temperature",
                     "raise the ceiling or lower the start temperature");

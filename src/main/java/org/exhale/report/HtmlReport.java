@@ -326,7 +326,9 @@ final class HtmlReport {
             double d = p.path("duration_s").asDouble();
             double lb = p.path("lower_bound_s").asDouble();
             b.append("<p>The plan takes ").append(escape(value("duration_s", p.path("duration_s"))))
-                    .append("; no recipe within the limits can be shorter than ")
+                    .append(p.path("lower_bound_rigorous").asBoolean(false)
+                            ? "; no recipe within the limits can be shorter than "
+                            : "; the lower bound (an estimate, not a guarantee) is ")
                     .append(escape(value("lower_bound_s", p.path("lower_bound_s")))).append(" (")
                     .append(escape(lb > 0 ? "plan / bound = " + sig(d / lb, 3) : "")).append(").</p>\n");
         }

@@ -66,7 +66,9 @@ final class PlanCharts {
         JFreeChart c = ChartStyle.chart("Plan against the lower bound", plot, ReportText.label(f.caseName()), ratio);
         c.removeLegend();
         return Optional.of(new Figure("lower-bound", "Plan against the lower bound",
-                "Duration of the planned recipe beside the shortest time any recipe within the limits could take.",
+                p.path("lower_bound_rigorous").asBoolean(false)
+                        ? "Duration of the planned recipe beside the shortest time any recipe within the limits could take."
+                        : "Duration of the planned recipe beside an estimated lower bound (not a guarantee).",
                 c));
     }
 }

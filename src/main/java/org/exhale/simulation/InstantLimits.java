@@ -100,7 +100,14 @@ public final class InstantLimits {
             gen[j] = generation[j];
             perm[j] = transport.permeance(j, temperatureK);
         }
-        double dp = transport.quasiSteadyExcessPressure(temperatureK, gen, perm);
+        return monotoneMarginAtPressure(temperatureK, transport.quasiSteadyExcessPressure(temperatureK, gen, perm));
+    }
+
+    /**
+     * The margin of {@link #monotoneMargin} at a given excess pressure instead of a generation: in any
+     * gas regime these limits hold at (T, Δp) exactly when this is at least 1.
+     */
+    public double monotoneMarginAtPressure(double temperatureK, double dp) {
         double m = ratio(maxPressurePa, dp);
         if (beyondStructure(dp)) {
             return 0;
@@ -113,6 +120,11 @@ public final class InstantLimits {
             m = Math.min(m, ratio(structure.maxDeflectionM(), Math.abs(r.deflectionM())));
         }
         return m;
+    }
+
+    /** The cap's transport model (permeances, viscous conductance). */
+    public GasTransport transport() {
+        return transport;
     }
 
     /**

@@ -1,0 +1,469 @@
+package org.exhale.planning;
+
+import java.util.Arrays;
+
+import org.exhale.PhysicalConstants;
+import org.exhale.kinetics.Component;
+import org.exhale.simulation.BakeCase;
+import org.exhale.simulation.InstantLimits;
+
+/**
+ * A joint minimum-time lower bound over the conversions of the components (two of them jointly; with
+ * three, the third is left out of the state), for the quasi-steady gas regime (MODEL.md §9; the proof is in docs/model.md, "Lower bounds").
+ *
+ * <p>The state is the hot corner's conversions. The component with the smallest activation energy
+ * is the clock: its conversion α_q rises strictly, so every trajectory crosses each level a_i of a
+ * grid in α_q exactly once, and at that instant the other components lie in some cell c of their
+ * own grids. τ(i, c) is a lower bound on the instant any recipe crosses level i with the others in
+ * cell c. A move from (i, c) to (i+1, c') keeps every conversion inside the box
+ * [a_i, a_{i+1}] × [lo(c), hi(c')]; on it no admissible temperature exceeds T_top, the highest at
+ * which the monotone limits hold with the least gas any state of the box generates (at both corners,
+ * the cold corner 2ΔT lower with its least gas), and the temperature cap. In reduced time
+ * F_j = ∫dα/f_j the move is exact: ΔF_j = ∫ρ_j(T) dF_q with ρ_j = k_j/k_q, and Δt = ∫dF_q/k_q(T).
+ * By Jensen's inequality (1/k_q is a convex function of ρ_j along the Arrhenius curve) the move
+ * takes at least ΔF_q/k_q(T*), T* the highest temperature ≤ T_top consistent with the others
+ * ending in c'. Grids are finite, F is rounded outward, the admissible temperature upward: every
+ * discretisation error lowers the bound.
+ */
+final class JointBound {
+    private static final double R = PhysicalConstants.GAS_CONSTANT;
+    private static final double HORIZON_S = 2 * 86_400;
+
+    /** The bound [s], the clock component, the grid sizes and the margin evaluations spent. */
+    record Outcome(double boundS, int clock, int levels, int cells, long evaluations) {
+    }
+
+    private final InstantLimits limits;
+    private final TemperatureCap cap;
+    private final double spread;
+    private final double hotCeilingK;
+    private final double floorK;
+    private final int k;
+    private final Component[] comps;
+    private final ReducedTime[] rt;
+    private final double[] w;
+    private final double target;
+    private final int q;
+    private final int[] others;
+    private final double[] levels;
+    private final double[][] cells;
+    private final double[] rhoCold;
+    private final int[] stride;
+    private final int cellCount;
+    private final double[] gen;
+    private final double[] genCold;
+    private long evaluations;
+    private final CappedClock capped;
+    /** Per other component and grid point: lower and upper F, f, and ρ at the hot ceiling. */
+    private final double[][] cellLo;
+    private final double[][] cellHi;
+    private final double[][] cellF;
+    private final double[] rhoTop;
+
+    JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta) {
+        this.limits = limits;
+        this.cap = cap;
+        this.spread = spread;
+        this.hotCeilingK = cap.capK() + spread;
+        this.floorK = bake.recipeStartK() - 100;
+        this.k = limits.size();
+        this.comps = bake.polymer().components().toArray(new Component[0]);
+        this.rt = new ReducedTime[k];
+        this.w = new double[k];
+        this.rhoCold = new double[k];
+        for (int j = 0; j < k; j++) {
+            rt[j] = new ReducedTime(comps[j].model(), bake.polymer().initialConversion(j));
+            w[j] = comps[j].fraction();
+            // the cold corner, 2ΔT lower, gains reduced time at least this much slower at every temperature it can
+            // have (k(T)/k(T − 2ΔT) falls with T; the hot corner is at most at the ceiling)
+            rhoCold[j] = spread > 0 ? comps[j].rateConstant(hotCeilingK) / comps[j].rateConstant(hotCeilingK - 2 * spread) : 1;
+        }
+        this.target = bake.limits().residue();
+        int clock = 0;
+        for (int j = 1; j < k; j++) {
+            double e = comps[j].activationEnergyJPerMol();
+            double eq = comps[clock].activationEnergyJPerMol();
+            if (e < eq || (e == eq && w[j] > w[clock])) {
+                clock = j;
+            }
+        }
+        this.q = clock;
+        // the clock and one other component: with three, the one of larger weight; the third is left out of the state
+        // (its gas taken as none and its residue as gone, both of which only lower the bound)
+        int other = -1;
+        for (int j = 0; j < k; j++) {
+            if (j != q && (other < 0 || w[j] > w[other])) {
+                other = j;
+            }
+        }
+        this.others = other < 0 ? new int[0] : new int[]{other};
+        this.levels = grid(rt[q], top(q), clockDelta, false);
+        this.cells = new double[others.length][];
+        this.stride = new int[others.length];
+        int count = 1;
+        for (int o = 0; o < others.length; o++) {
+            cells[o] = grid(rt[others[o]], top(others[o]), cellDelta, true);
+            stride[o] = count;
+            count *= cells[o].length - 1;
+        }
+        this.cellCount = count;
+        this.gen = new double[k];
+        this.genCold = new double[k];
+        this.capped = new CappedClock(comps[q], cap, spread);
+        cellLo = new double[others.length][];
+        cellHi = new double[others.length][];
+        cellF = new double[others.length][];
+        rhoTop = new double[others.length];
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            int n = cells[o].length;
+            cellLo[o] = new double[n];
+            cellHi[o] = new double[n];
+            cellF[o] = new double[n];
+            for (int p = 0; p < n; p++) {
+                cellLo[o][p] = rt[j].lower(cells[o][p]);
+                cellHi[o][p] = rt[j].upper(cells[o][p]);
+                cellF[o][p] = comps[j].model().f(cells[o][p]);
+            }
+            rhoTop[o] = rho(j, hotCeilingK);
+        }
+    }
+
+    /**
+     * The clock's reduced time gained under the rising cap, C(s) = ∫_0^s k_q(cap(u) + ΔT) du, tabulated
+     * on a 1 s grid as an upper Riemann sum (the integrand never falls), for the arrival of a move
+     * while the cap still rises.
+     */
+    static final class CappedClock {
+        private final Component clock;
+        private final double[] cum;
+        private final double[] hot;
+
+        CappedClock(Component clock, TemperatureCap cap, double spread) {
+            this.clock = clock;
+            int n = (int) Math.ceil(cap.settledS()) + 2;
+            cum = new double[n + 1];
+            hot = new double[n + 1];
+            hot[0] = cap.wafer(0) + spread;
+            for (int i = 1; i <= n; i++) {
+                hot[i] = cap.wafer(i) + spread;
+                cum[i] = cum[i - 1] + clock.rateConstant(hot[i]) * (1 + 1e-12);
+            }
+        }
+
+        /**
+         * A lower bound on when a move that gains reduced time f, starts at t0 or later and is never
+         * hotter than min(top, cap(s) + ΔT), can end. Per grid second the move gains at most the
+         * larger end's k (the cap rises), and from the second the cap reaches top at most k(top).
+         */
+        double arrival(double t0, double top, double f) {
+            int n = cum.length - 1;
+            double kTop = clock.rateConstant(top) * (1 + 1e-12);
+            int s0 = Math.min((int) Math.floor(t0), n);
+            // the first grid second at or after s0 from which the cap is at least top (n if never within the table)
+            int lo = s0;
+            int hi = n;
+            if (hot[hi] < top) {
+                lo = n;
+            } else {
+                while (lo < hi) {
+                    int mid = (lo + hi) >>> 1;
+                    if (hot[mid] >= top) {
+                        hi = mid;
+                    } else {
+                        lo = mid + 1;
+                    }
+                }
+            }
+            int sTop = lo;
+            // the reduced time gained from t0 to the end of its grid second is at most that second's share
+            double base = s0 < n ? cum[s0] + (t0 - s0) * (cum[s0 + 1] - cum[s0]) : cum[n];
+            if (cum[sTop] - base >= f && sTop > s0) {
+                int a = s0 + 1;
+                int b = sTop;
+                while (a < b) {
+                    int mid = (a + b) >>> 1;
+                    if (cum[mid] - base >= f) {
+                        b = mid;
+                    } else {
+                        a = mid + 1;
+                    }
+                }
+                double step = cum[a] - cum[a - 1];
+                return Math.max(t0, a - 1 + (f - (cum[a - 1] - base)) / step);
+            }
+            return Math.max(t0, sTop + (f - (cum[sTop] - base)) / kTop);
+        }
+    }
+
+    /** Conversion above which a component's residue is 2 % of the target: beyond it the grid need not go. */
+    private double top(int j) {
+        double a = 1 - 0.02 * target / w[j];
+        return Math.max(a, Math.min(rt[j].alpha0() + 1e-6, 0.5 * (1 + rt[j].alpha0())));
+    }
+
+    /**
+     * Grid points from α0 to top over which f varies by at most a factor 1 + delta (and α by at most
+     * 0.05) between neighbours; with {@code toOne}, 1 closes the last cell.
+     */
+    static double[] grid(ReducedTime r, double top, double delta, boolean toOne) {
+        double a0 = r.alpha0();
+        double s0 = ReducedTime.logit(Math.max(a0, 1e-9));
+        double s1 = ReducedTime.logit(top);
+        double[] out = new double[64];
+        int n = 0;
+        out[n++] = a0;
+        double x = a0;
+        double prev = a0;
+        for (double s = s0 + 0.002; s < s1; s += 0.002) {
+            double c = ReducedTime.sigmoid(s);
+            if (c <= x) {
+                continue;
+            }
+            double fmax = r.maxF(x, c);
+            double fmin = r.minF(x, c);
+            if ((fmax > (1 + delta) * fmin || c - x > 0.05) && prev > x) {
+                if (n == out.length) {
+                    out = Arrays.copyOf(out, 2 * n);
+                }
+                out[n++] = prev;
+                x = prev;
+            }
+            prev = c;
+        }
+        if (n + 2 > out.length) {
+            out = Arrays.copyOf(out, n + 2);
+        }
+        if (top > x) {
+            out[n++] = top;
+        }
+        if (toOne) {
+            out[n++] = 1;
+        }
+        return Arrays.copyOf(out, n);
+    }
+
+    Outcome compute() {
+        int nl = levels.length;
+        double best = Double.POSITIVE_INFINITY;
+        double[] tau = new double[cellCount];
+        Arrays.fill(tau, Double.POSITIVE_INFINITY);
+        tau[0] = 0;
+        double[] next = new double[cellCount];
+        java.util.HashMap<Long, Double> memoPrev = null;
+        int[] c = new int[others.length];
+        int[] cp = new int[others.length];
+        double hotMax = hotCeilingK;
+        for (int i = 0; i + 1 < nl; i++) {
+            Arrays.fill(next, Double.POSITIVE_INFINITY);
+            java.util.HashMap<Long, Double> memo = new java.util.HashMap<>();
+            double fLo = rt[q].lower(levels[i + 1]) - rt[q].upper(levels[i]);
+            double fHi = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
+            fLo = Math.max(fLo, 0);
+            double clockFloor = rt[q].minF(levels[i], levels[i + 1]);
+            double clockColdFloor = rt[q].minF(rt[q].alpha0(), coldAtMost(q, levels[i + 1]));
+            boolean any = false;
+            for (int flat = 0; flat < cellCount; flat++) {
+                double t0 = tau[flat];
+                if (!(t0 < best) || t0 > HORIZON_S) {
+                    continue;
+                }
+                any = true;
+                decode(flat, c);
+                // could the target be reached during a move out of this node? (the others can advance at most
+                // ρ_j(hottest) ΔF_q in reduced time while the clock rises to the next level)
+                if (capable(i, c, fHi, hotMax)) {
+                    best = Math.min(best, t0);
+                    continue;
+                }
+                // landing cells c' ≥ c, dimension by dimension while the move can still be made
+                System.arraycopy(c, 0, cp, 0, c.length);
+                while (true) {
+                    double d = moveTime(i, c, cp, t0, fLo, fHi, clockFloor, clockColdFloor, memo, memoPrev);
+                    boolean feasible = d >= 0;
+                    if (feasible) {
+                        int to = encode(cp);
+                        next[to] = Math.min(next[to], t0 + d);
+                    }
+                    // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
+                    int o = 0;
+                    while (o < others.length) {
+                        if (cp[o] + 1 < cells[o].length - 1 && reachable(i, o, c[o], cp[o] + 1, fHi)) {
+                            cp[o]++;
+                            break;
+                        }
+                        cp[o] = c[o];
+                        o++;
+                    }
+                    if (o == others.length) {
+                        break;
+                    }
+                }
+            }
+            if (!any) {
+                break;
+            }
+            memoPrev = memo;
+            double[] swap = tau;
+            tau = next;
+            next = swap;
+        }
+        // nodes at the top level: any recipe that reaches the target later crossed one of them
+        for (int flat = 0; flat < cellCount; flat++) {
+            best = Math.min(best, tau[flat]);
+        }
+        return new Outcome(best > HORIZON_S ? Double.POSITIVE_INFINITY : best, q, levels.length, cellCount, evaluations);
+    }
+
+    private int encode(int[] idx) {
+        int f = 0;
+        for (int o = 0; o < idx.length; o++) {
+            f += idx[o] * stride[o];
+        }
+        return f;
+    }
+
+    private void decode(int flat, int[] idx) {
+        for (int o = idx.length - 1; o >= 0; o--) {
+            idx[o] = flat / stride[o];
+            flat -= idx[o] * stride[o];
+        }
+    }
+
+    private double rho(int j, double temperatureK) {
+        return comps[j].rateConstant(temperatureK) / comps[q].rateConstant(temperatureK);
+    }
+
+    /** The temperature at which ρ_j = x (ρ_j rises with T when E_j > E_q). */
+    private double rhoInverse(int j, double x) {
+        double de = comps[j].activationEnergyJPerMol() - comps[q].activationEnergyJPerMol();
+        double ratio = comps[j].preExponentialPerS() / comps[q].preExponentialPerS();
+        double l = Math.log(ratio / x);
+        return l <= 0 ? Double.POSITIVE_INFINITY : de / (R * l) * (1 + 1e-12);
+    }
+
+    /** Whether other component o can get from cell c0 into cell c1 while the clock moves one level at all. */
+    private boolean reachable(int i, int o, int c0, int c1, double fHi) {
+        int j = others[o];
+        double lo = Math.max(0, cellLo[o][c1] - cellHi[o][c0 + 1]);
+        return lo <= rhoTop[o] * fHi * (1 + 1e-12);
+    }
+
+    private boolean capable(int i, int[] c, double fHi, double hotMax) {
+        double u = w[q] * (1 - coldAtMost(q, levels[i + 1]));
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            double reach = cellHi[o][c[o] + 1] + rhoTop[o] * fHi;
+            u += w[j] * (1 - coldAtMost(j, rt[j].conversionAtMost(reach)));
+        }
+        return u <= target;
+    }
+
+    /** An upper bound on the cold corner's conversion when the hot corner's is at most a. */
+    private double coldAtMost(int j, double a) {
+        if (a >= 1) {
+            return 1;
+        }
+        return rt[j].conversionAtMost(rt[j].upper(a) / rhoCold[j]);
+    }
+
+    /** A lower bound on the duration of the move (i, c) → (i+1, cp) started at t0 or later; −1 if impossible. */
+    private double moveTime(int i, int[] c, int[] cp, double t0, double fLo, double fHi, double clockFloor,
+                            double clockColdFloor, java.util.HashMap<Long, Double> memo,
+                            java.util.HashMap<Long, Double> memoPrev) {
+        double adm = admissible(i, c, cp, clockFloor, clockColdFloor, memo, memoPrev);
+        // Jensen's bound with the region's top temperature (the cap left out) ...
+        double d = duration(c, cp, Math.min(adm, hotCeilingK), fLo, fHi);
+        if (d < 0 || adm <= cap.wafer(t0) + spread) {
+            return d;
+        }
+        // ... and, while the cap still rises, the clock's own reduced time: a move that starts at t ≥ t0 and ends at e
+        // gains ΔF_q ≤ ∫_t^e k_q(min(T_top, cap(s))) ds ≤ Λ(t0, e), so e is at least the root of Λ(t0, e) = ΔF_q
+        return Math.max(d, capped.arrival(t0, adm, fLo) - t0);
+    }
+
+    private double duration(int[] c, int[] cp, double top, double fLo, double fHi) {
+        double tStar = top;
+        double eq = comps[q].activationEnergyJPerMol();
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            double thLo = Math.max(0, cellLo[o][cp[o]] - cellHi[o][c[o] + 1]);
+            double thHi = cellHi[o][cp[o] + 1] - cellLo[o][c[o]];
+            double xLo = thLo / fHi;
+            double xHi = fLo > 0 ? thHi / fLo : Double.POSITIVE_INFINITY;
+            double r = rho(j, top);
+            if (comps[j].activationEnergyJPerMol() == eq) {
+                if (xLo > r * (1 + 1e-12) || xHi < r * (1 - 1e-12)) {
+                    return -1;
+                }
+                continue;
+            }
+            if (xLo > r * (1 + 1e-12)) {
+                return -1;
+            }
+            if (xHi < r) {
+                tStar = Math.min(tStar, rhoInverse(j, xHi));
+            }
+        }
+        double kq = comps[q].rateConstant(tStar);
+        return kq > 0 ? fLo / kq : (fLo > 0 ? Double.POSITIVE_INFINITY : 0);
+    }
+
+    /**
+     * The highest hot-corner temperature at which the monotone limits hold with the least gas of the
+     * move's box at the hot corner, and at the cold corner 2ΔT lower with the least gas its
+     * conversions can give (at most {@link #coldAtMost} of the box's top), memoised by the grid points
+     * that give the least gas.
+     */
+    private double admissible(int i, int[] c, int[] cp, double clockFloor, double clockColdFloor,
+                              java.util.HashMap<Long, Double> memo, java.util.HashMap<Long, Double> memoPrev) {
+        long key = 0;
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            int e = cellF[o][c[o]] <= cellF[o][cp[o] + 1] ? c[o] : cp[o] + 1;
+            key = (key * cells[o].length + e) * cells[o].length + (cp[o] + 1);
+        }
+        Double m = memo.get(key);
+        if (m != null) {
+            return m;
+        }
+        double[] floors = new double[k];
+        double[] coldFloors = new double[k];
+        floors[q] = clockFloor;
+        coldFloors[q] = clockColdFloor;
+        long kk = key;
+        for (int o = others.length - 1; o >= 0; o--) {
+            int j = others[o];
+            int h = (int) (kk % cells[o].length);
+            kk /= cells[o].length;
+            int e = (int) (kk % cells[o].length);
+            kk /= cells[o].length;
+            floors[j] = cellF[o][e];
+            coldFloors[j] = rt[j].minF(rt[j].alpha0(), coldAtMost(j, cells[o][h]));
+        }
+        Double g = memoPrev == null ? null : memoPrev.get(key);
+        double t = LowerBound.highestFeasible(temp -> margin(temp, floors, coldFloors), hotCeilingK, floorK,
+                g == null ? Double.NaN : g);
+        if (Double.isNaN(t)) {
+            t = floorK;
+        }
+        memo.put(key, t);
+        return t;
+    }
+
+    private double margin(double hotK, double[] floors, double[] coldFloors) {
+        evaluations++;
+        for (int j = 0; j < k; j++) {
+            gen[j] = limits.gasifiable(j) * comps[j].rateConstant(hotK) * floors[j];
+        }
+        double m = limits.monotoneMargin(hotK, gen);
+        if (spread > 0) {
+            double cold = hotK - 2 * spread;
+            for (int j = 0; j < k; j++) {
+                genCold[j] = limits.gasifiable(j) * comps[j].rateConstant(cold) * coldFloors[j];
+            }
+            m = Math.min(m, limits.monotoneMargin(cold, genCold));
+        }
+        return m;
+    }
+}
