@@ -72,7 +72,7 @@ public final class KineticsAnalysis {
                     failures.put(m.id(), plain(e));
                 }
             }
-            iso = Isoconversional.withApproximationBias(iso);
+            iso = Isoconversional.withApproximationBias(iso, curves);
             try {
                 kissinger = Kissinger.compute(curves, analysis.confidence(), vyazovkin != null ? vyazovkin : friedman);
             } catch (RuntimeException e) {
