@@ -59,7 +59,7 @@ class ArtefactRunsTest {
 
     @Test
     void buoyancyDriftIsCorrectedAndStaysOne() {
-        // Truth ONE with a drift of +1 % of the mass over 500 K. Measured E 150.00.
+        // Truth ONE with a drift of +1 % of the mass over 500 K. Measured E 150.00 ± 0.05.
         KineticsReport r = analyse(ONE, 380, 660, 0, 0, 0.01, 0, 2, Pretreatment.DEFAULT);
         assertOne(r, 0.01, "drift");
         assertTrue(r.warnings().stream().anyMatch(w -> w.contains("final plateau slopes")), r.warnings().toString());
@@ -76,8 +76,8 @@ class ArtefactRunsTest {
 
     @Test
     void twoComponentsWithNoiseOfOneTenthAndOnePercent() {
-        // Truth TWO. Noise 0.1 % of the mass: measured E 150.0 / 175.2, fractions 0.401 / 0.599.
-        // Noise 1 %: measured E 150.5 / 176.6, fractions 0.415 / 0.585.
+        // Truth TWO. Noise 0.1 % of the mass: measured E 149.9 ± 1.2 / 175.1 ± 0.6, fractions 0.399 / 0.601.
+        // Noise 1 %: measured E 149.2 ± 11.9 / 176.0 ± 6.1, fractions 0.395 / 0.605.
         double[][] cases = {{1e-3, 0.01, 0.01}, {1e-2, 0.03, 0.04}};
         for (double[] c : cases) {
             KineticsReport r = analyse(TWO, 400, 700, 0, 0, 0, c[0], 4, Pretreatment.DEFAULT);
@@ -102,8 +102,9 @@ class ArtefactRunsTest {
     @Test
     void tenSecondLagWithAndWithoutCorrection() {
         // Truth ONE, the sample lagging the recorded temperature by τ = 10 s. Without --lag every
-        // method reads E low (measured 142.0 kJ/mol, −5.3 %) but no component is invented and the
-        // residuals are flagged; with --lag 10 s the truth comes back (measured 150.00).
+        // method reads E low (measured 140.7 ± 10.9 kJ/mol, −6.2 %, the interval still covering 150)
+        // but no component is invented and the residuals are flagged; with --lag 10 s the truth
+        // comes back (measured 150.00).
         KineticsReport raw = analyse(ONE, 380, 660, 0, 10, 0, 0, 6, Pretreatment.DEFAULT);
         assertOne(raw, 0.08, "lag, uncorrected");
         assertTrue(raw.warnings().stream().anyMatch(w -> w.contains("strongly correlated")), raw.warnings().toString());
