@@ -176,8 +176,18 @@ public final class TgaCsvReader {
                 continue;
             }
             int row = li + 1;
-            if (layout == null || isHeader(line) && !parses(line, layout)) {
-                String[] names = split(line, sep);
+            String[] cells = split(line, sep);
+            double[] v = null;
+            InputException bad = null;
+            if (layout != null) {
+                try {
+                    v = layout.values(fileName, row, cells);
+                } catch (InputException e) {
+                    bad = e;
+                }
+            }
+            if (v == null && (layout == null || isHeader(line))) {
+                String[] names = cells;
                 int next = nextContent(lines, li + 1);
                 String[] units = next >= 0 ? unitRow(lines[next], sep, names.length) : null;
                 if (units != null) {
@@ -196,11 +206,7 @@ public final class TgaCsvReader {
                 }
                 continue;
             }
-            String[] cells = split(line, sep);
-            double[] v;
-            try {
-                v = layout.values(fileName, row, cells);
-            } catch (InputException e) {
+            if (v == null) {
                 int next = nextDataOrHeader(lines, li + 1, layout);
                 if (next < 0 && !groups.isEmpty()) {
                     int rest = 0;
@@ -214,7 +220,7 @@ public final class TgaCsvReader {
                     notes.add(fileName + ": line " + row + " before the next header ignored (block title)");
                     continue;
                 }
-                throw e;
+                throw bad;
             }
             String key = block + "\u0000" + (layout.group == null ? "" : cells[layout.group.index].trim());
             Series s = groups.computeIfAbsent(key, k -> new Series());

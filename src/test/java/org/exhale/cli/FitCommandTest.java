@@ -105,6 +105,8 @@ class FitCommandTest {
         }
         args.add("-o");
         args.add(dir.resolve("out").toString());
+        args.add("--max-points");
+        args.add("200"); // enough for these checks, a third of the default's cost
         args.addAll(List.of(extra));
         return args.toArray(new String[0]);
     }
