@@ -18,7 +18,7 @@ import picocli.CommandLine.Command;
                 RobustCommand.class, FitCommand.class, ReportCommand.class, DemoCommand.class, BenchCommand.class,
                 SchemaCommand.class, CompletionCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 all limits met; 1 internal error; 2 bad input; 3 a limit is violated; "
-                + "4 no feasible recipe."})
+                + "4 no feasible recipe; 130 stopped with Ctrl-C (compare and robust keep the work done)."})
 public final class Main implements Runnable {
     public static final int OK = 0;
     public static final int INTERNAL = 1;
@@ -32,7 +32,18 @@ public final class Main implements Runnable {
     }
 
     public static void main(String[] args) {
-        System.exit(execute(args));
+        java.io.PrintStream out = Terminal.stdout();
+        System.setOut(out);
+        System.setErr(Terminal.stderr());
+        int code = execute(args);
+        out.flush();
+        if (out.checkError()) {
+            // PrintStream swallows write errors: a full disk or a closed pipe must not look like success
+            System.err.println("error: standard output: cannot write (the disk is full, or the reader closed it); "
+                    + "the output is incomplete");
+            code = INTERNAL;
+        }
+        System.exit(code);
     }
 
     /** Runs the command line and returns the exit code (no System.exit; used by tests). */
@@ -46,8 +57,9 @@ public final class Main implements Runnable {
         cl.setExecutionExceptionHandler(Main::handle);
         cl.setParameterExceptionHandler((ex, a) -> {
             PrintWriter err = ex.getCommandLine().getErr();
-            err.println("error: " + ex.getMessage());
-            err.println("Try '" + ex.getCommandLine().getCommandSpec().qualifiedName() + " --help'.");
+            String msg = String.valueOf(ex.getMessage()).replaceAll("\\s*[\\r\\n]+\\s*", " ").strip();
+            err.println("error: command line: " + Terminal.clean(msg) + " (try '"
+                    + ex.getCommandLine().getCommandSpec().qualifiedName() + " --help')");
             return BAD_INPUT;
         });
         return cl;
@@ -67,13 +79,20 @@ public final class Main implements Runnable {
         PrintWriter err = cl.getErr();
         boolean debug = parse != null && hasDebug(parse);
         if (ex instanceof InputException ie) {
-            err.println("error: " + ie.getMessage());
+            err.println("error: " + Terminal.clean(ie.getMessage()));
             if (debug) {
                 ex.printStackTrace(err);
             }
             return BAD_INPUT;
         }
-        err.println("internal error: " + ex + (debug ? "" : " (run with --debug for details)"));
+        if (ex instanceof org.exhale.simulation.OutOfReach oor) {
+            err.println("error: " + Terminal.clean(oor.getMessage()));
+            if (debug) {
+                ex.printStackTrace(err);
+            }
+            return BAD_INPUT;
+        }
+        err.println("internal error: " + Terminal.clean(String.valueOf(ex)) + (debug ? "" : " (run with --debug for details)"));
         if (debug) {
             ex.printStackTrace(err);
         }

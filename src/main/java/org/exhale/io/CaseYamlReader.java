@@ -75,7 +75,7 @@ public final class CaseYamlReader {
         String name = path.toString();
         try {
             if (!Files.isRegularFile(path)) {
-                throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "no such file");
+                throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, notRegular(path));
             }
             if (Files.size(path) > MAX_BYTES) {
                 throw new InputException(ErrorKind.TOO_LARGE, name, "", 0,
@@ -85,6 +85,17 @@ public final class CaseYamlReader {
         } catch (IOException e) {
             throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "cannot read: " + e.getMessage());
         }
+    }
+
+    /** Why a path that is not a regular file cannot be read: absent, a folder, or a device, pipe or socket. */
+    public static String notRegular(Path path) {
+        if (Files.isDirectory(path)) {
+            return "is a folder; expected a file";
+        }
+        if (Files.exists(path)) {
+            return "is not a regular file (a device, pipe or socket); expected a file";
+        }
+        return "no such file";
     }
 
     public static CaseFile parse(String name, byte[] bytes) {
@@ -238,7 +249,8 @@ public final class CaseYamlReader {
 
     private Polymer polymer(YamlNode p) {
         double density = p.requiredQuantity("density", UnitKind.DENSITY, 10, 30_000, "a density in (0.01, 30) g/cm3");
-        double freeVolume = p.has("free_volume") ? p.number("free_volume", 0, 0, 1) : Polymer.DEFAULT_FREE_VOLUME;
+        double freeVolume = p.has("free_volume") ? p.quantity("free_volume", UnitKind.FRACTION, 0, 0, 1,
+                "a fraction in [0, 1] such as 0.02 or 2 %") : Polymer.DEFAULT_FREE_VOLUME;
         if (!p.has("free_volume")) {
             defaults.add("polymer.free_volume = 0.02");
         }
@@ -279,19 +291,32 @@ public final class CaseYamlReader {
             throw c.get("name").error(ErrorKind.OUT_OF_RANGE,
                     "component name '" + name + "' must be 1–40 letters, digits, spaces or _ . + -");
         }
-        double fraction = single ? c.number("fraction", 1, 1e-9, 1) : c.requiredNumber("fraction", 1e-9, 1);
+        String fractionRange = "a fraction in (0, 1] such as 0.8 or 80 %";
+        double fraction = single ? c.quantity("fraction", UnitKind.FRACTION, 1, 1e-9, 1, fractionRange)
+                : c.requiredQuantity("fraction", UnitKind.FRACTION, 1e-9, 1, fractionRange);
         ReactionModel model = model(c);
         double a = c.requiredQuantity("A", UnitKind.FREQUENCY, 1e-10, 1e40, "a pre-exponential factor in (1e-10, 1e40) 1/s");
         double e = c.requiredQuantity("Ea", UnitKind.MOLAR_ENERGY, 1e3, 1e6, "an activation energy in (1, 1000) kJ/mol");
-        double ch = c.number("char", 0, 0, 0.999);
+        double ch = c.quantity("char", UnitKind.FRACTION, 0, 0, 0.999, "a fraction in [0, 0.999] such as 0.05 or 5 %");
         YamlNode pr = c.section("product");
         double m = pr.requiredQuantity("molar_mass", UnitKind.MOLAR_MASS, 2e-3, 10, "a molar mass in [2, 10000] g/mol");
         double d = pr.requiredQuantity("diameter", UnitKind.LENGTH, 1e-11, 1e-8, "a kinetic diameter in [0.01, 10] nm");
         double dm = pr.quantity("diffusivity", UnitKind.DIFFUSIVITY, ambientDiffusivity, 1e-12, 1,
                 "a diffusivity in (1e-12, 1) m2/s");
+        // the product's own solution–diffusion permeability through the cap's solid; the cap's is the default
+        double pi0 = Double.NaN;
+        double ePi = Double.NaN;
+        if (pr.has("permeability")) {
+            YamlNode p = pr.section("permeability");
+            pi0 = p.requiredQuantity("Pi0", UnitKind.PERMEABILITY, 0, 1, "a permeability in [0, 1) mol/(m s Pa)");
+            ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000) kJ/mol");
+            p.finish();
+        }
         pr.finish();
         c.finish();
-        return build(c, () -> new Component(name, fraction, model, a, e, ch, new Product(m, d, dm)));
+        double fpi0 = pi0;
+        double fePi = ePi;
+        return build(c, () -> new Component(name, fraction, model, a, e, ch, new Product(m, d, dm, fpi0, fePi)));
     }
 
     private static ReactionModel model(YamlNode c) {
@@ -345,10 +370,7 @@ public final class CaseYamlReader {
 
     private CapFilm capFilm(YamlNode c) {
         double h = c.requiredQuantity("thickness", UnitKind.LENGTH, 1e-9, 1e-3, "a thickness in [1 nm, 1 mm]");
-        double e = c.requiredNumber("porosity", 0, 0.999);
-        if (e >= 0.999) {
-            throw c.get("porosity").error(ErrorKind.OUT_OF_RANGE, "porosity must be below 1");
-        }
+        double e = c.requiredQuantity("porosity", UnitKind.FRACTION, 0, 0.999, "a porosity in [0, 0.999] such as 0.3 or 30 %");
         double r = e > 0 ? c.requiredQuantity("pore_radius", UnitKind.LENGTH, 1e-11, 1e-4, "a pore radius in [0.01 nm, 100 um]")
                 : c.quantity("pore_radius", UnitKind.LENGTH, 0, 0, 1e-4, "a pore radius in [0, 100 um]");
         double tau = Double.NaN;
@@ -366,12 +388,9 @@ public final class CaseYamlReader {
         double ePi = 0;
         if (c.has("permeability")) {
             YamlNode p = c.section("permeability");
-            pi0 = p.quantity("Pi0", UnitKind.PERMEABILITY, 0, 0, 1, "a permeability in [0, 1) mol/(m s Pa)");
+            pi0 = p.quantity("Pi0", UnitKind.PERMEABILITY, 0, 0, Math.nextDown(1.0), "a permeability in [0, 1) mol/(m s Pa)");
             ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000) kJ/mol");
             p.finish();
-        }
-        if (e == 0 && pi0 == 0) {
-            warnings.add("the cap is dense (porosity 0) and has no permeability: the gas has no way out");
         }
         double fpi0 = pi0;
         double fePi = ePi;
@@ -539,19 +558,34 @@ public final class CaseYamlReader {
         return String.format(java.util.Locale.ROOT, "%.6g C", k - C0);
     }
 
+    static final String SETPOINT_STEP_RANGE = "a resolution of 0 (continuous) or in [0.001, 50] K";
+    static final String TIME_STEP_RANGE = "a resolution of 0 (continuous) or in [1 ms, 600 s]";
+
     private Tool tool(YamlNode t) {
         double up = t.requiredQuantity("max_ramp_up", UnitKind.HEATING_RATE, 1e-6, 100, "a rate such as 10 C/min");
         double down = t.quantity("max_ramp_down", UnitKind.HEATING_RATE, up, 1e-6, 100, "a rate such as 5 C/min");
-        double sp = t.quantity("setpoint_step", UnitKind.TEMPERATURE_DIFFERENCE, 1, 0, 50, "a resolution in [0, 50] K");
-        double ts = t.quantity("time_step", UnitKind.TIME, 1, 0, 600, "a resolution in [0, 600] s");
+        double sp = t.quantity("setpoint_step", UnitKind.TEMPERATURE_DIFFERENCE, 1, 0, 50, SETPOINT_STEP_RANGE);
+        double ts = t.quantity("time_step", UnitKind.TIME, 1, 0, 600, TIME_STEP_RANGE);
+        // a resolution finer than the tool's clock or thermocouple can mean nothing, and setpoints
+        // rounded to 1e-308 K overflow: 0 (continuous) or at least 1 mK and 1 ms
+        if (sp > 0 && sp < 1e-3) {
+            throw t.get("setpoint_step").error(ErrorKind.OUT_OF_RANGE, "'" + t.get("setpoint_step").text()
+                    + "' is out of range, expected " + SETPOINT_STEP_RANGE);
+        }
+        if (ts > 0 && ts < 1e-3) {
+            throw t.get("time_step").error(ErrorKind.OUT_OF_RANGE, "'" + t.get("time_step").text()
+                    + "' is out of range, expected " + TIME_STEP_RANGE);
+        }
         double ms = t.quantity("min_step", UnitKind.TIME, 30, 0, 36_000, "a time in [0, 10 h]");
         int n = (int) t.number("max_steps", 12, 2, 100);
         if (t.has("max_steps") && t.number("max_steps", 12, 2, 100) != n) {
             throw t.get("max_steps").error(ErrorKind.BAD_NUMBER, "max_steps must be a whole number");
         }
         double unload = t.quantity("unload", UnitKind.TEMPERATURE, Double.NaN, 1, 3000, "a temperature such as 150 C");
+        double overshoot = t.quantity("overshoot", UnitKind.TEMPERATURE_DIFFERENCE, 0, 0, 50,
+                "a temperature difference in [0, 50] K such as 2 K");
         t.finish();
-        return build(t, () -> new Tool(up, down, sp, ts, ms, n, unload));
+        return build(t, () -> new Tool(up, down, sp, ts, ms, n, unload, overshoot));
     }
 
     // ---------------------------------------------------------------- chamber
@@ -667,6 +701,11 @@ public final class CaseYamlReader {
             warnings.add("cap.porosity " + b.cap().porosity() + " is above 0.8, unusual for a cap film");
         }
         for (Component c : b.polymer().components()) {
+            double ownPi0 = c.product().hasOwnPermeability() ? c.product().permeabilityPi0() : b.cap().permeabilityPi0();
+            if (b.cap().porosity() == 0 && ownPi0 == 0) {
+                warnings.add("the cap is dense (porosity 0) and gives the product of '" + c.name()
+                        + "' no permeability: that gas has no way out");
+            }
             if (b.cap().porosity() > 0 && c.product().kineticDiameterM() >= 2 * b.cap().poreRadiusM()) {
                 warnings.add("product of '" + c.name() + "' (" + c.product().kineticDiameterM() * 1e9
                         + " nm) does not fit the pores (diameter " + 2 * b.cap().poreRadiusM() * 1e9 + " nm): no diffusion path");

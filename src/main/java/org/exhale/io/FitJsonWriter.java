@@ -1,8 +1,5 @@
 package org.exhale.io;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -93,11 +90,7 @@ public final class FitJsonWriter {
         root.put("failures", report.failures());
         root.put("warnings", warnings);
         root.put("notes", notes);
-        try {
-            return new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(root) + "\n";
-        } catch (JsonProcessingException e) {
-            throw new IllegalStateException("cannot format fit.json", e);
-        }
+        return SummaryJsonWriter.toJson(root);
     }
 
     private static Map<String, Object> fit(ModelFitResult f) {

@@ -95,8 +95,8 @@ public final class Quantities {
 
     static String normaliseSymbol(String s) {
         String t = s.trim();
-        t = t.replace("m^2", "m2").replace("m²", "m2").replace("cm³", "cm3").replace("m³", "m3")
-                .replace("s^-1", "s-1").replace("s⁻¹", "s-1").replace("·", " ");
+        // powers may be written m2, m^2 or m²; s-1, s^-1 or s⁻¹ (the same for every unit: g/cm^3, J/m^2, 1/K)
+        t = t.replace("^", "").replace("²", "2").replace("³", "3").replace("⁻¹", "-1").replace("·", " ");
         return t.replaceAll("\\s+", " ");
     }
 

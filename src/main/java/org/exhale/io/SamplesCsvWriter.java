@@ -33,7 +33,8 @@ public final class SamplesCsvWriter {
             }
             sb.append(',').append(o.feasible()).append(',').append(Numbers.csv(o.timeToTargetS()));
             for (double m : o.margins()) {
-                sb.append(',').append(m == Double.POSITIVE_INFINITY ? "inf" : Numbers.csv(m));
+                // a limit never loaded in this sample (buckling of a cap never compressed) has no finite margin: empty cell
+                sb.append(',').append(Numbers.csv(m));
             }
             int t = o.tightest();
             sb.append(',').append(t < 0 ? "" : limits.get(t)).append(',').append(Numbers.csv(o.smallestSlack())).append('\n');

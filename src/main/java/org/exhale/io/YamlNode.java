@@ -38,12 +38,14 @@ public final class YamlNode {
         this.node = node;
         this.seen = seen;
         this.recorder = recorder;
+        refuseCustomTag(node);
         if (!seen.add(node) && !(node instanceof ScalarNode)) {
             throw error(ErrorKind.TOO_LARGE, "YAML aliases of mappings and lists are not accepted");
         }
         if (node instanceof MappingNode m) {
             entries = new LinkedHashMap<>();
             for (NodeTuple t : m.getValue()) {
+                refuseCustomTag(t.getKeyNode());
                 if (!(t.getKeyNode() instanceof ScalarNode k)) {
                     throw new InputException(ErrorKind.WRONG_TYPE, file, path, line(t.getKeyNode()),
                             "keys must be plain names");
@@ -55,6 +57,18 @@ public final class YamlNode {
             }
         } else {
             entries = Map.of();
+        }
+    }
+
+    /**
+     * A tag other than YAML's own (`!mytag 300 nm`, `!`) asks for a meaning this reader does not give:
+     * it is refused rather than silently read as text.
+     */
+    private void refuseCustomTag(Node n) {
+        org.yaml.snakeyaml.nodes.Tag tag = n.getTag();
+        if (tag != null && !tag.getValue().startsWith(org.yaml.snakeyaml.nodes.Tag.PREFIX)) {
+            throw new InputException(ErrorKind.SYNTAX, file, path, line(n), "YAML tag '" + tag.getValue()
+                    + "' is not accepted; a case file uses no tags, write the value alone");
         }
     }
 
@@ -144,7 +158,12 @@ public final class YamlNode {
     public YamlNode get(String key) {
         allowed.add(key);
         NodeTuple t = entries.get(key);
-        if (t == null || isNull(t.getValueNode())) {
+        if (t != null && isNull(t.getValueNode())) {
+            // `cte:`, `cte: null`, `cte: ~`: the key is there, its value is not; say so at the key's own line
+            throw new InputException(ErrorKind.MISSING_KEY, file, join(path, key), line(t.getKeyNode()),
+                    "key '" + key + "' has no value; expected a value here");
+        }
+        if (t == null) {
             if (!isMapping()) {
                 throw error(ErrorKind.WRONG_TYPE, "expected a mapping of keys, found " + describe());
             }

@@ -22,12 +22,12 @@ public record Component(String name, double fraction, ReactionModel model, doubl
         if (!(fraction > 0 && fraction <= 1)) {
             throw new IllegalArgumentException("component fraction must be in (0, 1], got " + fraction);
         }
-        if (!(preExponentialPerS > 0 && preExponentialPerS < 1e40)) {
-            throw new IllegalArgumentException("pre-exponential factor A must be in (0, 1e40) 1/s, got "
+        if (!(preExponentialPerS > 0 && preExponentialPerS <= 1e40)) {
+            throw new IllegalArgumentException("pre-exponential factor A must be in (0, 1e40] 1/s, got "
                     + preExponentialPerS);
         }
-        if (!(activationEnergyJPerMol > 0 && activationEnergyJPerMol < 1e6)) {
-            throw new IllegalArgumentException("activation energy must be in (0, 1000) kJ/mol, got "
+        if (!(activationEnergyJPerMol > 0 && activationEnergyJPerMol <= 1e6)) {
+            throw new IllegalArgumentException("activation energy must be in (0, 1000] kJ/mol, got "
                     + activationEnergyJPerMol / 1e3 + " kJ/mol");
         }
         if (!(charFraction >= 0 && charFraction < 1)) {

@@ -18,8 +18,8 @@ public record Polymer(double densityKgPerM3, double freeVolumeFraction, List<Com
     public static final double DEFAULT_FREE_VOLUME = 0.02;
 
     public Polymer {
-        if (!(densityKgPerM3 > 10 && densityKgPerM3 < 30_000)) {
-            throw new IllegalArgumentException("polymer density must be in (0.01, 30) g/cm3, got "
+        if (!(densityKgPerM3 >= 10 && densityKgPerM3 <= 30_000)) {
+            throw new IllegalArgumentException("polymer density must be in [0.01, 30] g/cm3, got "
                     + densityKgPerM3 / 1e3 + " g/cm3");
         }
         if (!(freeVolumeFraction >= 0 && freeVolumeFraction <= 1)) {

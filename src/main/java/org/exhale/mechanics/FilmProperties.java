@@ -31,8 +31,8 @@ public record FilmProperties(double youngsModulusPa, double poisson, double cteP
         if (!(poisson > -1 && poisson < 0.5)) {
             throw new IllegalArgumentException("Poisson's ratio must be in (-1, 0.5), got " + poisson);
         }
-        if (!(Math.abs(ctePerK) < 1e-3)) {
-            throw new IllegalArgumentException("film CTE must be finite and below 1e-3 1/K in magnitude, got "
+        if (!(Math.abs(ctePerK) <= 1e-3)) {
+            throw new IllegalArgumentException("film CTE must be finite and at most 1e-3 1/K in magnitude, got "
                     + ctePerK);
         }
         if (!(stressFreeTemperatureK > 0 && stressFreeTemperatureK < 1e4)) {

@@ -9,8 +9,8 @@ import java.util.List;
  */
 public record Recipe(double startK, List<Step> steps) {
     public Recipe {
-        if (!(startK > 0 && startK < 3000)) {
-            throw new IllegalArgumentException("recipe start must be a temperature in (−273, 2727) C");
+        if (!(startK > 0 && startK <= 3000)) {
+            throw new IllegalArgumentException("recipe start must be a temperature in (−273.15 C, 3000 K]");
         }
         if (steps == null || steps.isEmpty()) {
             throw new IllegalArgumentException("recipe needs at least one step");
@@ -51,6 +51,11 @@ public record Recipe(double startK, List<Step> steps) {
     public double durationS() {
         List<Segment> seg = segments();
         return seg.get(seg.size() - 1).endTimeS();
+    }
+
+    /** Where the residue target applies: the end of the final hold (see {@link ResidueCheckpoint}). */
+    public ResidueCheckpoint residueCheckpoint() {
+        return ResidueCheckpoint.of(this);
     }
 
     /** Highest setpoint of the program [K]. */

@@ -9,8 +9,8 @@ public sealed interface Step permits Step.Ramp, Step.Hold {
      */
     record Ramp(double targetK, double rateKPerS) implements Step {
         public Ramp {
-            if (!(targetK > 0 && targetK < 3000)) {
-                throw new IllegalArgumentException("ramp target must be in (−273, 2727) C, got " + targetK + " K");
+            if (!(targetK > 0 && targetK <= 3000)) {
+                throw new IllegalArgumentException("ramp target must be in (−273.15 C, 3000 K], got " + targetK + " K");
             }
             if (!(rateKPerS > 0 && rateKPerS <= 100)) {
                 throw new IllegalArgumentException("ramp rate must be in (0, 6000] C/min, got " + rateKPerS * 60 + " C/min");

@@ -153,22 +153,14 @@ public final class CsvTable {
         if (s.isEmpty()) {
             return Double.NaN;
         }
-        // the sample writers spell the margin of a never-loaded limit "inf"
-        switch (s.toLowerCase(java.util.Locale.ROOT)) {
-            case "inf", "+inf", "infinity", "+infinity" -> {
-                return Double.POSITIVE_INFINITY;
-            }
-            case "-inf", "-infinity" -> {
-                return Double.NEGATIVE_INFINITY;
-            }
-            case "nan" -> {
-                return Double.NaN;
-            }
-            default -> {
-            }
-        }
         try {
-            return Double.parseDouble(s);
+            double v = Double.parseDouble(s);
+            if (!Double.isFinite(v)) {
+                // exhale writes no inf or NaN (a value not loaded is an empty cell): such a cell was edited or is not ours
+                throw new InputException(ErrorKind.BAD_NUMBER, file, "row " + (row + 1) + ", column '" + column + "'",
+                        lines.get(row), "'" + s + "' is not a finite number; expected a finite number or an empty cell");
+            }
+            return v;
         } catch (NumberFormatException e) {
             throw new InputException(ErrorKind.BAD_NUMBER, file, "row " + (row + 1) + ", column '" + column + "'",
                     lines.get(row), "'" + s + "' is not a number");

@@ -267,6 +267,37 @@ final class BakeModel {
         this.segment = s;
     }
 
+    /** Starts a segment with the wafer at a given temperature (a bake resumed from a saved state). */
+    void startSegment(Segment s, double waferAtStartK) {
+        this.segment = s;
+        this.waferAtSegmentStart = waferAtStartK;
+    }
+
+    /**
+     * Absolute tolerances of the states: conversions 1e-12; in the full-gas regime the normalised
+     * moles under the cap 1e-7 of their expected peak {@code gasScale}; dose 1e-6 s; chamber states.
+     */
+    double[] absoluteTolerances(double gasScale) {
+        double[] a = new double[dim];
+        for (int j = 0; j < k; j++) {
+            a[j] = 1e-12;
+        }
+        if (regime == GasRegime.FULL_GAS) {
+            for (int j = 0; j < k; j++) {
+                a[iGas + j] = Math.max(1e-7 * gasScale, 1e-30);
+                a[iVent + j] = 1e-12;
+            }
+        }
+        a[iDose] = 1e-6;
+        if (iChamber >= 0) {
+            for (int j = 0; j < k; j++) {
+                a[iChamber + j] = 1e-14;
+                a[iExhaust + j] = 1e-12;
+            }
+        }
+        return a;
+    }
+
     double[] initialState(double startSetpointK) {
         double[] y = new double[dim];
         System.arraycopy(alpha0, 0, y, 0, k);
@@ -396,7 +427,14 @@ final class BakeModel {
         out[oStored] = stored;
         out[oGasified] = gasified;
         out[oVented] = vented;
-        if (structure != null) {
+        if (structure != null && !(dp <= InstantLimits.BEYOND_ANY_FILM_PA)) {
+            // a (nearly) sealed cap: the pressure is beyond any film, the plate formulas overflow; the thermal
+            // stress stands, every pressure-driven response is unbounded and its limit fails
+            CapResponse r0 = structure.evaluate(temp, 0);
+            java.util.Arrays.fill(out, oFilmStress, oCompression + 1, Double.POSITIVE_INFINITY);
+            out[oFilmStress] = r0.thermalStressPa();
+            out[oCompression] = r0.bucklingCompressionPa();
+        } else if (structure != null) {
             CapResponse r = structure.evaluate(temp, dp);
             out[oFilmStress] = r.thermalStressPa();
             out[oFilmStress + 1] = r.bendingStressPa();

@@ -18,14 +18,14 @@ public record Cavity(Shape shape, double widthM, double lengthM, double heightM)
         if (shape == null) {
             throw new IllegalArgumentException("cavity shape is required");
         }
-        if (!(widthM > 0 && widthM < 0.1)) {
-            throw new IllegalArgumentException("cavity width must be in (0, 100) mm, got " + widthM + " m");
+        if (!(widthM > 0 && widthM <= 0.1)) {
+            throw new IllegalArgumentException("cavity width must be in (0, 100] mm, got " + widthM + " m");
         }
-        if (!(heightM > 0 && heightM < 0.01)) {
-            throw new IllegalArgumentException("cavity height must be in (0, 10) mm, got " + heightM + " m");
+        if (!(heightM > 0 && heightM <= 0.01)) {
+            throw new IllegalArgumentException("cavity height must be in (0, 10] mm, got " + heightM + " m");
         }
-        if (shape == Shape.RECTANGLE && !(lengthM >= widthM && lengthM < 1)) {
-            throw new IllegalArgumentException("rectangle length must be at least its width, got " + lengthM + " m");
+        if (shape == Shape.RECTANGLE && !(lengthM >= widthM && lengthM <= 1)) {
+            throw new IllegalArgumentException("rectangle length must be at least its width and at most 1 m, got " + lengthM + " m");
         }
         if (shape != Shape.RECTANGLE) {
             lengthM = widthM;

@@ -47,6 +47,9 @@ final class CornerRun {
     private double nextSample;
     private double timeTo1pct = Double.NaN;
     private double timeToTarget = Double.NaN;
+    /** The step at whose end the residue target applies, and the unconverted fraction there. */
+    private final int checkpointStep;
+    private double unconvertedAtCheckpoint = Double.NaN;
     private double qsError;
     private double storedPeak;
     private boolean first = true;
@@ -65,6 +68,7 @@ final class CornerRun {
         this.recipe = bake.recipe();
         this.settings = settings;
         this.residueTarget = bake.limits().residue();
+        this.checkpointStep = recipe.residueCheckpoint().stepIndex();
         this.corner = corner;
         this.offsetK = offsetK;
         this.columns = model.observableNames();
@@ -91,7 +95,7 @@ final class CornerRun {
     CornerResult run() {
         List<Segment> segments = recipe.segments();
         double[] y = model.initialState(recipe.startK());
-        double[] absTol = absoluteTolerances();
+        double[] absTol = model.absoluteTolerances(gasScale);
         double rtol = settings.relativeTolerance();
         double hNext = 0;
         RosenbrockIntegrator stiff = null;
@@ -125,19 +129,31 @@ final class CornerRun {
                 first = false;
             }
             if (seg.durationS() <= 0) {
+                if (seg.stepIndex() == checkpointStep) {
+                    unconvertedAtCheckpoint = samples[samplesPerStep][model.oUnconverted];
+                }
                 continue;
             }
-            if (useRosenbrock) {
-                hNext = stiff.integrate(model::derivatives, seg.startTimeS(), y, seg.endTimeS(), hNext, this::onStep);
-            } else {
-                explicit.clearStepHandlers();
-                explicit.addStepHandler(interpolator -> onStep(new HipparchusStep(interpolator)));
-                ODEStateAndDerivative end = explicit.integrate(ode, new ODEState(seg.startTimeS(), y), seg.endTimeS());
-                y = end.getPrimaryState();
-                count[0] += explicit.getEvaluations();
+            try {
+                if (useRosenbrock) {
+                    hNext = stiff.integrate(model::derivatives, seg.startTimeS(), y, seg.endTimeS(), hNext, this::onStep);
+                } else {
+                    explicit.clearStepHandlers();
+                    explicit.addStepHandler(interpolator -> onStep(new HipparchusStep(interpolator)));
+                    ODEStateAndDerivative end = explicit.integrate(ode, new ODEState(seg.startTimeS(), y), seg.endTimeS());
+                    y = end.getPrimaryState();
+                    count[0] += explicit.getEvaluations();
+                }
+            } catch (RosenbrockIntegrator.StepFailure e) {
+                throw outOfReach(e.time, stateName(e.index), e.overflow, e);
+            } catch (org.hipparchus.exception.MathIllegalStateException e) {
+                throw outOfReach(seg.startTimeS(), "the decomposition kinetics", false, e);
             }
             // segment end always recorded
             double[] last = samples[samplesPerStep];
+            if (seg.stepIndex() == checkpointStep) {
+                unconvertedAtCheckpoint = last[model.oUnconverted];
+            }
             if (settings.sampleIntervalS() > 0 && (history.isEmpty() || history.get(history.size() - 1)[0] < last[0])) {
                 history.add(last.clone());
             }
@@ -155,33 +171,40 @@ final class CornerRun {
             rows.put(columns.get(tracked[i]), maxRow[i]);
         }
         return new CornerResult(corner, offsetK, model.regime, qsError, maxima, rows, timeTo1pct, timeToTarget,
-                end[model.oUnconverted], end[model.oDose], balance, columns, history, evaluations);
+                end[model.oUnconverted], unconvertedAtCheckpoint, end[model.oDose], balance, columns, history, evaluations);
+    }
+
+    /** What state component i means, in the words of the case file. */
+    private String stateName(int i) {
+        List<String> names = model.componentNames();
+        if (i < model.k) {
+            return "the conversion of component '" + names.get(i) + "'";
+        }
+        if (model.iGas >= 0 && i >= model.iGas && i < model.iGas + model.k) {
+            return "the gas of component '" + names.get(i - model.iGas) + "' trapped under the cap";
+        }
+        if (model.iVent >= 0 && i >= model.iVent && i < model.iVent + model.k) {
+            return "the gas of component '" + names.get(i - model.iVent) + "' vented through the cap";
+        }
+        if (i == model.iDose) {
+            return "the thermal dose";
+        }
+        return "the product concentration in the chamber";
+    }
+
+    private OutOfReach outOfReach(double t, String what, boolean overflow, Throwable cause) {
+        String when = String.format(java.util.Locale.ROOT, "at t = %.6g s (%s corner)", t, corner);
+        return new OutOfReach((overflow
+                ? "the model overflows: " + what + " stops being finite " + when
+                  + "; the cap is effectively sealed or the rates are beyond the model's range"
+                : "the model cannot resolve " + what + " " + when
+                  + ": it changes faster than the time resolution of the simulation (about 1e-14 of the time) allows")
+                + "; such a case is outside the model's reach, check the kinetics and cap values", cause);
     }
 
     private static double[] fill(double v, int n) {
         double[] a = new double[n];
         java.util.Arrays.fill(a, v);
-        return a;
-    }
-
-    private double[] absoluteTolerances() {
-        double[] a = new double[model.dim];
-        for (int j = 0; j < model.k; j++) {
-            a[j] = 1e-12;
-        }
-        if (model.regime == GasRegime.FULL_GAS) {
-            for (int j = 0; j < model.k; j++) {
-                a[model.iGas + j] = Math.max(1e-7 * gasScale, 1e-30);
-                a[model.iVent + j] = 1e-12;
-            }
-        }
-        a[model.iDose] = 1e-6;
-        if (model.iChamber >= 0) {
-            for (int j = 0; j < model.k; j++) {
-                a[model.iChamber + j] = 1e-14;
-                a[model.iExhaust + j] = 1e-12;
-            }
-        }
         return a;
     }
 

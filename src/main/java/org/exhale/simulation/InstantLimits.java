@@ -74,6 +74,9 @@ public final class InstantLimits {
     public double margin(double temperatureK, double[] alpha) {
         double dp = excessPressure(temperatureK, alpha);
         double m = ratio(maxPressurePa, dp);
+        if (beyondStructure(dp)) {
+            return 0;
+        }
         if (structure != null) {
             CapResponse r = structure.evaluate(temperatureK, dp);
             m = Math.min(m, ratio(structure.allowedStressPa(), r.edgeStressPa()));
@@ -99,6 +102,9 @@ public final class InstantLimits {
         }
         double dp = transport.quasiSteadyExcessPressure(temperatureK, gen, perm);
         double m = ratio(maxPressurePa, dp);
+        if (beyondStructure(dp)) {
+            return 0;
+        }
         if (structure != null) {
             CapResponse r = structure.evaluate(temperatureK, dp);
             m = Math.min(m, ratio(structure.allowedStressPa(), r.edgeStressPa()));
@@ -107,6 +113,17 @@ public final class InstantLimits {
             m = Math.min(m, ratio(structure.maxDeflectionM(), Math.abs(r.deflectionM())));
         }
         return m;
+    }
+
+    /**
+     * Pressures above this no film survives (1 TPa, beyond the strength of any solid) [Pa]: under a
+     * nearly sealed cap (porosity 1e-308, a permeability of 1e-300) the quasi-steady pressure
+     * overflows, and the plate formulas with it; every mechanical limit counts as failed there.
+     */
+    static final double BEYOND_ANY_FILM_PA = 1e12;
+
+    private boolean beyondStructure(double dp) {
+        return structure != null && !(dp <= BEYOND_ANY_FILM_PA);
     }
 
     /** Gasifiable moles of component j per area, m0 w_j (1 − c_j)/M_j [mol/m²]. */

@@ -68,6 +68,7 @@ final class RosenbrockIntegrator {
         evaluations++;
         boolean jacobianFresh = false;
         DenseStep view = new DenseStep(n);
+        int forcedSteps = 0;
         while (t < t1) {
             if (t + h > t1 || t1 - (t + h) < 1e-12 * span) {
                 h = t1 - t;
@@ -114,25 +115,81 @@ final class RosenbrockIntegrator {
             if (!Double.isFinite(err)) {
                 err = 1e10;
             }
-            if (err <= 1) {
-                view.set(t, h, y, k1, k2);
-                double tNew = t + h;
-                steps++;
-                System.arraycopy(y1, 0, y, 0, n);
-                System.arraycopy(f2, 0, f0, 0, n);
-                t = tNew;
-                listener.step(view);
-                jacobianFresh = false;
-                double fac = err == 0 ? 5 : Math.min(5, 0.8 * Math.pow(err, -1.0 / 3));
-                h *= Math.max(0.2, fac);
-            } else {
-                h *= Math.max(0.1, 0.8 * Math.pow(err, -1.0 / 3));
-                if (h < 1e-14 * Math.max(1, Math.abs(t))) {
-                    throw new IllegalStateException("step size underflow at t = " + t + " s");
+            if (!(err <= 1)) {
+                double hMin = 1e-14 * Math.max(1, Math.abs(t));
+                double hNew = h * Math.max(0.1, 0.8 * Math.pow(err, -1.0 / 3));
+                if (hNew >= hMin) {
+                    h = hNew;
+                    continue;
+                }
+                if (h > hMin * (1 + 1e-9)) {
+                    h = hMin;
+                    continue;
+                }
+                // At the smallest step the clock resolves, the error is still too large: the right-hand
+                // side jumps here (a component's conversion reaching 1 cuts its rate to 0 at once, as
+                // under a near-zero reaction order). Step over the jump at this size: the error of such a
+                // step is bounded by the jump times hMin. Refuse only when the state stops being finite
+                // or the jumps never end.
+                if (err >= 1e10 || !finite(y1) || ++forcedSteps > MAX_FORCED_STEPS) {
+                    throw new StepFailure(t, worst(y, y1, k1, k2, k3, h), err >= 1e10 || !finite(y1));
                 }
             }
+            view.set(t, h, y, k1, k2);
+            double tNew = t + h;
+            steps++;
+            System.arraycopy(y1, 0, y, 0, n);
+            System.arraycopy(f2, 0, f0, 0, n);
+            t = tNew;
+            listener.step(view);
+            jacobianFresh = false;
+            double fac = err == 0 ? 5 : Math.min(5, 0.8 * Math.pow(Math.max(err, 1e-30), -1.0 / 3));
+            h *= Math.max(0.2, fac);
         }
         return h;
+    }
+
+    /** Most steps per call taken over a jump of the right-hand side at the smallest step size. */
+    static final int MAX_FORCED_STEPS = 10_000;
+
+    private static boolean finite(double[] v) {
+        for (double x : v) {
+            if (!Double.isFinite(x)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** The state component with the largest scaled error of the last attempted step. */
+    private int worst(double[] y, double[] y1, double[] k1, double[] k2, double[] k3, double h) {
+        int at = 0;
+        double max = -1;
+        for (int i = 0; i < n; i++) {
+            if (!Double.isFinite(y1[i])) {
+                return i;
+            }
+            double e = Math.abs(h / 6 * (k1[i] - 2 * k2[i] + k3[i])) / (atol[i] + rtol * Math.max(Math.abs(y[i]), Math.abs(y1[i])));
+            if (Double.isNaN(e) || e > max) {
+                max = Double.isNaN(e) ? Double.POSITIVE_INFINITY : e;
+                at = i;
+            }
+        }
+        return at;
+    }
+
+    /** The integrator cannot go on: the step size fell to the clock's resolution, or the state stopped being finite. */
+    static final class StepFailure extends RuntimeException {
+        final double time;
+        final int index;
+        final boolean overflow;
+
+        StepFailure(double time, int index, boolean overflow) {
+            super((overflow ? "the state stopped being finite" : "step size underflow") + " at t = " + time + " s");
+            this.time = time;
+            this.index = index;
+            this.overflow = overflow;
+        }
     }
 
     private void solve(DecompositionSolver lu, double[] b, double[] x) {

@@ -8,8 +8,8 @@ package org.exhale.simulation;
  */
 public record Wafer(double lagS, double spreadK) {
     public Wafer {
-        if (!(lagS >= 0 && lagS < 1e5)) {
-            throw new IllegalArgumentException("wafer lag must be in [0, 1e5) s, got " + lagS);
+        if (!(lagS >= 0 && lagS <= 1e5)) {
+            throw new IllegalArgumentException("wafer lag must be in [0, 1e5] s, got " + lagS);
         }
         if (!(spreadK >= 0 && spreadK < 200)) {
             throw new IllegalArgumentException("wafer spread must be in [0, 200) K, got " + spreadK);

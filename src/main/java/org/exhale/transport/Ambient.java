@@ -16,17 +16,17 @@ public record Ambient(double pressurePa, double viscosityPaS, double diffusivity
     public static final double DEFAULT_VISCOSITY_PA_S = 3.0e-5;
 
     public Ambient {
-        if (!(pressurePa >= 0 && pressurePa < 1e8)) {
-            throw new IllegalArgumentException("ambient pressure must be in [0, 100) MPa, got " + pressurePa + " Pa");
+        if (!(pressurePa >= 0 && pressurePa <= 1e8)) {
+            throw new IllegalArgumentException("ambient pressure must be in [0, 100] MPa, got " + pressurePa + " Pa");
         }
-        if (!(viscosityPaS > 0 && viscosityPaS < 1)) {
-            throw new IllegalArgumentException("ambient viscosity must be in (0, 1) Pa s, got " + viscosityPaS);
+        if (!(viscosityPaS > 0 && viscosityPaS <= 1)) {
+            throw new IllegalArgumentException("ambient viscosity must be in (0, 1] Pa s, got " + viscosityPaS);
         }
         if (!(diffusivityRefTemperatureK > 0 && diffusivityRefTemperatureK < 5000)) {
             throw new IllegalArgumentException("diffusivity reference temperature must be positive, got "
                     + diffusivityRefTemperatureK + " K");
         }
-        if (!(diffusivityRefPressurePa > 0 && diffusivityRefPressurePa < 1e8)) {
+        if (!(diffusivityRefPressurePa > 0 && diffusivityRefPressurePa <= 1e8)) {
             throw new IllegalArgumentException("diffusivity reference pressure must be positive, got "
                     + diffusivityRefPressurePa + " Pa");
         }

@@ -13,23 +13,23 @@ package org.exhale.transport;
 public record CapFilm(double thicknessM, double porosity, double poreRadiusM, double tortuosity,
                       double permeabilityPi0, double permeationActivationJPerMol) {
     public CapFilm {
-        if (!(thicknessM > 0 && thicknessM < 1e-3)) {
-            throw new IllegalArgumentException("cap thickness must be in (0, 1) mm, got " + thicknessM + " m");
+        if (!(thicknessM > 0 && thicknessM <= 1e-3)) {
+            throw new IllegalArgumentException("cap thickness must be in (0, 1] mm, got " + thicknessM + " m");
         }
         if (!(porosity >= 0 && porosity < 1)) {
             throw new IllegalArgumentException("cap porosity must be in [0, 1), got " + porosity);
         }
-        if (porosity > 0 && !(poreRadiusM > 0 && poreRadiusM < 1e-4)) {
-            throw new IllegalArgumentException("cap pore radius must be in (0, 100) um, got " + poreRadiusM + " m");
+        if (porosity > 0 && !(poreRadiusM > 0 && poreRadiusM <= 1e-4)) {
+            throw new IllegalArgumentException("cap pore radius must be in (0, 100] um, got " + poreRadiusM + " m");
         }
-        if (!Double.isNaN(tortuosity) && !(tortuosity >= 1 && tortuosity < 1e3)) {
-            throw new IllegalArgumentException("cap tortuosity must be in [1, 1000), got " + tortuosity);
+        if (!Double.isNaN(tortuosity) && !(tortuosity >= 1 && tortuosity <= 1e3)) {
+            throw new IllegalArgumentException("cap tortuosity must be in [1, 1000], got " + tortuosity);
         }
         if (!(permeabilityPi0 >= 0 && permeabilityPi0 < 1)) {
             throw new IllegalArgumentException("cap permeability Pi0 must be in [0, 1) mol/(m s Pa), got " + permeabilityPi0);
         }
-        if (!(permeationActivationJPerMol >= 0 && permeationActivationJPerMol < 1e6)) {
-            throw new IllegalArgumentException("permeation activation energy must be in [0, 1000) kJ/mol");
+        if (!(permeationActivationJPerMol >= 0 && permeationActivationJPerMol <= 1e6)) {
+            throw new IllegalArgumentException("permeation activation energy must be in [0, 1000] kJ/mol");
         }
     }
 

@@ -247,10 +247,15 @@ class ReportStudiesTest {
     }
 
     @Test
-    void infiniteMarginsAreRead() {
-        CsvTable t = CsvTable.parse("s.csv", "a_margin,b_margin\ninf,1.5\n-inf,nan\n");
-        assertEquals(Double.POSITIVE_INFINITY, t.number(0, "a_margin"));
-        assertEquals(Double.NEGATIVE_INFINITY, t.number(1, "a_margin"));
-        assertTrue(Double.isNaN(t.number(1, "b_margin")));
+    void nonFiniteCellsAreRefusedAndEmptyCellsReadAsMissing() {
+        // the writers leave a value that is not loaded empty; inf, NaN and 1e999 are not theirs (issue: LInfinity in a path)
+        CsvTable t = CsvTable.parse("s.csv", "a_margin,b_margin\ninf,1.5\n1e999,nan\n,2\n");
+        for (int[] rc : new int[][]{{0, 0}, {1, 0}, {1, 1}}) {
+            org.exhale.io.InputException e = org.junit.jupiter.api.Assertions.assertThrows(org.exhale.io.InputException.class,
+                    () -> t.number(rc[0], rc[1] == 0 ? "a_margin" : "b_margin"));
+            assertEquals(org.exhale.io.ErrorKind.BAD_NUMBER, e.kind());
+        }
+        assertEquals(1.5, t.number(0, "b_margin"));
+        assertTrue(Double.isNaN(t.number(2, "a_margin")));
     }
 }
