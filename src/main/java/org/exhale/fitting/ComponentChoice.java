@@ -75,7 +75,7 @@ public record ComponentChoice(ModelFitResult chosen, double effectivePoints, Map
             }
             if (chosen == null) {
                 chosen = f;
-                verdicts.put(k, String.format(Locale.ROOT, "rms %.2e, criterion %.1f", f.rms(), f.bicEffective(neff)));
+                verdicts.put(k, String.format(Locale.ROOT, "accepted, criterion %.1f", f.bicEffective(neff)));
                 continue;
             }
             double gain = chosen.rms() - f.rms();
@@ -91,7 +91,7 @@ public record ComponentChoice(ModelFitResult chosen, double effectivePoints, Map
                 continue;
             }
             chosen = f;
-            verdicts.put(k, String.format(Locale.ROOT, "rms %.2e, criterion %.1f", f.rms(), f.bicEffective(neff)));
+            verdicts.put(k, String.format(Locale.ROOT, "accepted, criterion %.1f", f.bicEffective(neff)));
         }
         return new ComponentChoice(chosen, neff, verdicts);
     }

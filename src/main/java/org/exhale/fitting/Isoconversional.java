@@ -42,20 +42,31 @@ public final class Isoconversional {
     }
 
     /**
-     * The results with the approximation bias of KAS, OFW and Starink (against Vyazovkin at each
-     * level) added to their half-widths; unchanged when Vyazovkin is missing.
+     * The results with the approximation bias of KAS, OFW and Starink added to their half-widths.
+     * Two parts, added: (1) the error of the method's closed-form temperature integral for a single
+     * step, exact for constant E: the line y = const − c E/RT has the slope −E (p′/p + b/x)/c at
+     * x = E/(RT), b = 2 (KAS), 0 (OFW), 1.92 (Starink), p by Senum–Yang (derived, no published
+     * source; docs/model.md); (2) for a process whose E varies with α, the bias of integrating
+     * from the start of the run, estimated as |E − E_Vyazovkin| (Vyazovkin's method integrates over
+     * the step only, along the measured T(t)). Part (2) is left out when Vyazovkin is missing.
      */
-    public static List<IsoconversionalResult> withApproximationBias(List<IsoconversionalResult> results) {
+    public static List<IsoconversionalResult> withApproximationBias(List<IsoconversionalResult> results,
+                                                                    List<ConversionCurve> runs) {
         IsoconversionalResult v = null;
         for (IsoconversionalResult r : results) {
             if (r.method() == IsoconversionalMethod.VYAZOVKIN) {
                 v = r;
             }
         }
-        if (v == null) {
-            return results;
+        double[] grid = runs.get(0).gridAlpha();
+        double[] meanT = new double[grid.length];
+        for (ConversionCurve c : runs) {
+            double[] gt = c.gridTemperatureK();
+            for (int g = 0; g < grid.length; g++) {
+                meanT[g] += gt[g] / runs.size();
+            }
         }
-        double[] ev = v.energyJPerMol();
+        double[] ev = v == null ? null : v.energyJPerMol();
         List<IsoconversionalResult> out = new java.util.ArrayList<>();
         for (IsoconversionalResult r : results) {
             IsoconversionalMethod m = r.method();
@@ -66,8 +77,16 @@ public final class Isoconversional {
             double[] e = r.energyJPerMol();
             double[] hw = r.halfWidthJPerMol();
             double[] bias = new double[e.length];
+            double b = m == IsoconversionalMethod.KAS ? 2 : m == IsoconversionalMethod.STARINK ? 1.92 : 0;
             for (int g = 0; g < e.length; g++) {
-                bias[g] = Double.isFinite(e[g]) && Double.isFinite(ev[g]) ? Math.abs(e[g] - ev[g]) : Double.NaN;
+                double x = e[g] / (R * meanT[g]);
+                double integral = Double.NaN;
+                if (x > 1 && Double.isFinite(x)) {
+                    double dlnp = -Math.exp(-x) / (x * x * TemperatureIntegral.senumYang(x));
+                    integral = Math.abs(-(dlnp + b / x) / m.slopeFactor() - 1) * Math.abs(e[g]);
+                }
+                double variable = ev != null && Double.isFinite(ev[g]) ? Math.abs(e[g] - ev[g]) : 0;
+                bias[g] = Double.isFinite(integral) ? integral + variable : Double.NaN;
                 if (Double.isFinite(bias[g])) {
                     hw[g] = hw[g] + bias[g];
                 }

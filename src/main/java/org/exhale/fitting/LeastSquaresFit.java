@@ -78,8 +78,12 @@ public record LeastSquaresFit(double[] parameters, double[][] covariance, double
                 })
                 .maxEvaluations(Math.max(100, 4 * maxIterations)).maxIterations(maxIterations)
                 .lazyEvaluation(false).build();
+        // Relative cost change below which LM stops: 1e-12 for small problems (NIST-grade digits), 1e-10
+        // for the thousands of residuals of a kinetics fit, where the last digits of the cost are
+        // rounding and a degenerate extra component would otherwise wander for hundreds of iterations.
+        double costTolerance = target.length > 200 ? 1e-10 : 1e-12;
         LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
-                .withCostRelativeTolerance(1e-12).withParameterRelativeTolerance(1e-12).withOrthoTolerance(1e-12);
+                .withCostRelativeTolerance(costTolerance).withParameterRelativeTolerance(1e-10).withOrthoTolerance(1e-12);
         LeastSquaresOptimizer.Optimum o;
         try {
             o = lm.optimize(problem);

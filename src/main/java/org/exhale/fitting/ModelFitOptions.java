@@ -38,6 +38,10 @@ public record ModelFitOptions(int components, ModelKind model, int maxPointsPerR
         return new ModelFitOptions(components, model, 600, 1e-4, 0.95, 300);
     }
 
+    public ModelFitOptions withMaxIterations(int n) {
+        return new ModelFitOptions(components, model, maxPointsPerRun, seedConversion, confidence, n);
+    }
+
     public ModelFitOptions withComponents(int k) {
         return new ModelFitOptions(k, model, maxPointsPerRun, seedConversion, confidence, maxIterations);
     }

@@ -42,6 +42,8 @@ public record Pretreatment(double fromK, double toK, boolean keepEarlyStep, doub
     public static final double MIN_EARLY_STEP = 0.003;
     /** The valley between the early and the main step is below this share of the early step's peak rate. */
     public static final double VALLEY_SHARE = 0.25;
+    /** The main step starts where the rate falls below this share of its peak (early-step search). */
+    public static final double EARLY_QUIET_SHARE = 0.003;
     /** The final plateau starts where the rate fell below this share of its peak. */
     public static final double PLATEAU_RATE_SHARE = 0.02;
     /** Shortest final plateau on which a slope is measured [K]. */
@@ -125,9 +127,12 @@ public record Pretreatment(double fromK, double toK, boolean keepEarlyStep, doub
             return new Prepared(new TgaRun(label, t, temp, m, run.basis()), w);
         }
         double quiet = Math.max(PLATEAU_RATE_SHARE * rate[peak], 3 * sigmaRate);
-        // Early step: walk left from the main peak to where the main step starts.
+        // Early step: walk left from the main peak to where the main step starts. A small, broad
+        // step of water peaks near 1 % of a sharp main step's rate: the start is where the rate
+        // falls below EARLY_QUIET_SHARE of the peak (or the noise).
+        double earlyQuiet = Math.max(EARLY_QUIET_SHARE * rate[peak], 3 * sigmaRate);
         int start = peak;
-        while (start > 0 && rate[start] > quiet) {
+        while (start > 0 && rate[start] > earlyQuiet) {
             start--;
         }
         int early = -1;
@@ -136,7 +141,7 @@ public record Pretreatment(double fromK, double toK, boolean keepEarlyStep, doub
                 early = i;
             }
         }
-        if (early >= 0 && rate[early] > 5 * sigmaRate && rate[early] > quiet) {
+        if (early >= 0 && rate[early] > 5 * sigmaRate && rate[early] > earlyQuiet) {
             int valley = early;
             for (int i = early; i <= start; i++) {
                 if (rate[i] < rate[valley]) {

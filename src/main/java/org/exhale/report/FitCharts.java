@@ -146,7 +146,7 @@ final class FitCharts {
         List<Double> widths = new ArrayList<>();
         int i = 0;
         for (String col : t.columns("E_", "_kJ_mol")) {
-            if (col.endsWith("_ci_kJ_mol")) {
+            if (col.endsWith("_ci_kJ_mol") || col.endsWith("_bias_kJ_mol")) {
                 continue;
             }
             String method = col.substring(2, col.length() - "_kJ_mol".length());
@@ -249,7 +249,7 @@ final class FitCharts {
             // Kissinger: ln(β/Tp²) = ln(A R / E) − E / (R Tp)
             XYSeries line = new XYSeries("Kissinger line, Ea " + ReportText.sig(e / 1e3, 4)
                     + (k.path("Ea_ci_kJ_mol").isNumber() ? " ± " + ReportText.sig(k.path("Ea_ci_kJ_mol").asDouble(), 3) : "")
-                    + " kJ/mol", false, true);
+                    + " kJ/mol" + (k.path("flagged").asBoolean(false) ? " (flagged: E(α) not constant)" : ""), false, true);
             double x0 = pts.getMinX() - 0.06 * (pts.getMaxX() - pts.getMinX());
             double x1 = pts.getMaxX() + 0.18 * (pts.getMaxX() - pts.getMinX());
             for (int s = 0; s <= 60; s++) {

@@ -95,4 +95,58 @@ class FitCommandTest {
         assertEquals(0, run(out, err, forced), err.toString());
         assertTrue(Files.readString(dir.resolve("out/kinetics.yaml")).contains("components"));
     }
+
+    private static String[] demoArgs(Path dir, String... extra) throws Exception {
+        List<String> args = new java.util.ArrayList<>();
+        for (String[] f : DemoTgaData.files()) {
+            Path p = dir.resolve(f[0]);
+            Files.writeString(p, f[1]);
+            args.add(p.toString());
+        }
+        args.add("-o");
+        args.add(dir.resolve("out").toString());
+        args.add("--max-points");
+        args.add("200"); // enough for these checks, a third of the default's cost
+        args.addAll(List.of(extra));
+        return args.toArray(new String[0]);
+    }
+
+    @Test
+    void quietPrintsNothingAndHelpHasNoFormatWarnings(@TempDir Path dir) throws Exception {
+        StringWriter out = new StringWriter(), err = new StringWriter();
+        assertEquals(0, run(out, err, demoArgs(dir, "-q", "--components", "2")), err.toString());
+        assertEquals("", out.toString());
+        assertEquals("", err.toString());
+        java.io.ByteArrayOutputStream sysErr = new java.io.ByteArrayOutputStream();
+        java.io.PrintStream old = System.err;
+        StringWriter help = new StringWriter();
+        try {
+            System.setErr(new java.io.PrintStream(sysErr, true));
+            CommandLine cmd = new CommandLine(new FitCommand());
+            cmd.setOut(new PrintWriter(help, true));
+            cmd.setErr(new PrintWriter(help, true));
+            cmd.execute("--help");
+        } finally {
+            System.setErr(old);
+        }
+        assertTrue(help.toString().contains("--keep-early-step"), help.toString());
+        assertTrue(help.toString().contains("3 %"), "escaped percent shown as %: " + help);
+        assertEquals("", sysErr.toString(), "picocli warnings");
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void aForcedCountNeverWritesAComponentUnderOnePercent(@TempDir Path dir) throws Exception {
+        // Truth (DemoTgaData): two components. Forcing three must not write an empty third one.
+        StringWriter out = new StringWriter(), err = new StringWriter();
+        int code = run(out, err, demoArgs(dir, "--components", "3"));
+        assertEquals(0, code, err.toString());
+        Map<String, Object> yaml = new Yaml().load(Files.readString(dir.resolve("out/kinetics.yaml")));
+        List<Map<String, Object>> comps = (List<Map<String, Object>>) ((Map<String, Object>) yaml.get("polymer")).get("components");
+        for (Map<String, Object> c : comps) {
+            assertTrue(((Number) c.get("fraction")).doubleValue() >= 0.01, c.toString());
+        }
+        assertTrue(Files.size(dir.resolve("out/isoconversional.csv")) > 0);
+        assertTrue(!err.toString().contains("maximal count") && !err.toString().contains("Exception"), err.toString());
+    }
 }
