@@ -70,7 +70,7 @@ public final class FitCommand implements Callable<Integer> {
     String range;
 
     @Option(names = "--residue", paramLabel = "FRACTION",
-            description = "Final mass as a share of the initial mass, e.g. '2 %'; default: each run's final plateau.")
+            description = "Final mass as a share of the initial mass, e.g. '2 %%'; default: each run's final plateau.")
     String residue;
 
     @Option(names = "--molar-mass", paramLabel = "M", defaultValue = "100 g/mol",
@@ -135,9 +135,33 @@ public final class FitCommand implements Callable<Integer> {
         TgaCsvReader reader = new TgaCsvReader();
         List<TgaRun> runs = new ArrayList<>();
         List<String> notes = new ArrayList<>();
+        java.util.Map<Path, Path> seenFiles = new java.util.HashMap<>();
         for (Path f : runFiles) {
+            Path key = f.toAbsolutePath().normalize();
+            try {
+                key = f.toRealPath();
+            } catch (java.io.IOException e) {
+                // the reader says why the file cannot be read
+            }
+            if (seenFiles.putIfAbsent(key, f) != null) {
+                throw new InputException(ErrorKind.BAD_ARGUMENT, f.toString(), "", 0,
+                        "the same run file is given twice (as " + seenFiles.get(key) + " too); each run counts once");
+            }
             TgaCsvReader.Result r = reader.read(f);
-            runs.addAll(r.runs());
+            for (TgaRun run : r.runs()) {
+                if (java.util.Arrays.stream(run.mass()).allMatch(m -> m <= 0)) {
+                    throw new InputException(ErrorKind.OUT_OF_RANGE, f.toString(), "run " + run.label(), 0,
+                            "every mass is zero or negative; expected the sample's mass (tare the balance before the run)");
+                }
+                for (TgaRun other : runs) {
+                    if (java.util.Arrays.equals(other.timeS(), run.timeS()) && java.util.Arrays.equals(other.temperatureK(), run.temperatureK())
+                            && java.util.Arrays.equals(other.mass(), run.mass())) {
+                        throw new InputException(ErrorKind.INCONSISTENT, f.toString(), "run " + run.label(), 0,
+                                "holds the same data as run " + other.label() + "; each run counts once");
+                    }
+                }
+                runs.add(run);
+            }
             notes.addAll(r.notes());
         }
         for (String n : notes) {
@@ -234,14 +258,14 @@ public final class FitCommand implements Callable<Integer> {
             for (double a : new double[] {0.1, 0.3, 0.5, 0.7, 0.9}) {
                 out.printf(Locale.ROOT, "  %5.2f ", a);
                 for (IsoconversionalResult r : report.isoconversional()) {
-                    out.printf(Locale.ROOT, " %8.1f ± %-7.1f", r.energyAt(a) / 1e3, r.halfWidthAt(a) / 1e3);
+                    out.printf(Locale.ROOT, " %8.1f ± %-7s", r.energyAt(a) / 1e3, pm(r.halfWidthAt(a) / 1e3, "%.1f"));
                 }
                 out.println();
             }
         }
         if (report.kissinger() != null) {
-            out.printf(Locale.ROOT, "Kissinger: Ea %.1f ± %.1f kJ/mol, A %.3e 1/s%n", report.kissinger().energyJPerMol() / 1e3,
-                    report.kissinger().energyHalfWidthJPerMol() / 1e3, report.kissinger().preExponentialPerS());
+            out.printf(Locale.ROOT, "Kissinger: Ea %.1f ± %s kJ/mol, A %.3e 1/s%n", report.kissinger().energyJPerMol() / 1e3,
+                    pm(report.kissinger().energyHalfWidthJPerMol() / 1e3, "%.1f"), report.kissinger().preExponentialPerS());
         }
         out.println("Model fits (criterion: lowest BIC):");
         for (ModelFitResult f : report.fits()) {
@@ -249,10 +273,16 @@ public final class FitCommand implements Callable<Integer> {
                     f.aic(), f.bic(), f == report.chosen() ? "   <- chosen" : "");
         }
         for (FittedComponent c : report.chosen().components()) {
-            out.printf(Locale.ROOT, "  %s: fraction %.3f ± %.3f  Ea %.2f ± %.2f kJ/mol  A %.3e 1/s (ln A ± %.2f)  %s %s%n",
-                    c.name(), c.fraction(), c.fractionHalfWidth(), c.energyJPerMol() / 1e3, c.energyHalfWidthJPerMol() / 1e3,
-                    c.preExponentialPerS(), c.lnPreExponentialHalfWidth(), c.model().id(), shape(c));
+            out.printf(Locale.ROOT, "  %s: fraction %.3f ± %s  Ea %.2f ± %s kJ/mol  A %.3e 1/s (ln A ± %s)  %s %s%n",
+                    c.name(), c.fraction(), pm(c.fractionHalfWidth(), "%.3f"), c.energyJPerMol() / 1e3,
+                    pm(c.energyHalfWidthJPerMol() / 1e3, "%.2f"), c.preExponentialPerS(), pm(c.lnPreExponentialHalfWidth(), "%.2f"),
+                    c.model().id(), shape(c));
         }
+    }
+
+    /** A confidence half-width, or "n/a" where it cannot be computed (too few runs leave no degrees of freedom). */
+    private static String pm(double halfWidth, String format) {
+        return Double.isFinite(halfWidth) ? String.format(Locale.ROOT, format, halfWidth) : "n/a";
     }
 
     private static String shape(FittedComponent c) {

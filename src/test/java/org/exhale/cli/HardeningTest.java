@@ -140,4 +140,27 @@ class HardeningTest {
             assertTrue(err.contains("standard output"), err);
         }
     }
+
+    @Test
+    void fitRefusesARunGivenTwiceAndRunsWithoutPositiveMass() throws Exception {
+        Path d = Path.of("data/demo/tga");
+        Path a = d.resolve("demo_02Kmin.csv");
+        Path b = d.resolve("demo_05Kmin.csv");
+        oneLine(CliErrorsTest.run("fit", a.toString(), b.toString(), a.toString(), "-o", tmp.resolve("f1").toString()),
+                Main.BAD_INPUT, "given twice");
+        Path copy = tmp.resolve("copy.csv");
+        Files.copy(b, copy);
+        oneLine(CliErrorsTest.run("fit", a.toString(), b.toString(), copy.toString(), "-o", tmp.resolve("f2").toString()),
+                Main.BAD_INPUT, "same data");
+        Path negative = tmp.resolve("negative.csv");
+        StringBuilder sb = new StringBuilder();
+        for (String line : Files.readAllLines(d.resolve("demo_10Kmin.csv"))) {
+            String[] f = line.split(",");
+            boolean data = f.length == 3 && !line.startsWith("#") && Character.isDigit(f[0].charAt(0));
+            sb.append(data ? f[0] + "," + f[1] + "," + (-Math.abs(Double.parseDouble(f[2])) - 1e-3) : line).append('\n');
+        }
+        Files.writeString(negative, sb.toString());
+        oneLine(CliErrorsTest.run("fit", a.toString(), b.toString(), negative.toString(), "-o", tmp.resolve("f3").toString()),
+                Main.BAD_INPUT, "negative");
+    }
 }
