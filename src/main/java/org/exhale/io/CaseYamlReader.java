@@ -83,7 +83,7 @@ public final class CaseYamlReader {
             }
             return Files.readAllBytes(path);
         } catch (IOException e) {
-            throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "cannot read: " + e.getMessage());
+            throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "cannot read: " + Messages.of(e));
         }
     }
 
