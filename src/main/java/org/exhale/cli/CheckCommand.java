@@ -121,15 +121,20 @@ final class CheckCommand implements Callable<Integer> {
             out.println("  Product of '" + p.component() + "' (" + sig(p.molarMassKgPerMol() * 1e3) + " g/mol, "
                     + sig(p.kineticDiameterM() * 1e9) + " nm)" + (Double.isNaN(d.knudsenRoom()) ? ""
                     : ": steric factor (1 - sigma/(2 r_p))^2 = " + sig(p.stericFactor())));
-            out.println(String.format(Locale.ROOT, "    %-8s %9s %11s %11s %11s %11s %13s %11s", "at", "T [C]",
-                    "D_K [m2/s]", "D_m [m2/s]", "D_pore", "D_eff", "K [mol/m2sPa]", "tau_g [s]"));
+            out.println("    permeation through the solid: Pi0 " + sig(p.permeabilityPi0()) + " mol/(m s Pa), Ea "
+                    + sig(p.permeationActivationJPerMol() / 1e3) + " kJ/mol ("
+                    + (p.ownPermeability() ? "its own, product.permeability" : "the cap's, cap.permeability") + ")");
+            out.println(String.format(Locale.ROOT, "    %-8s %9s %11s %11s %11s %11s %13s %13s %11s", "at", "T [C]",
+                    "D_K [m2/s]", "D_m [m2/s]", "D_pore", "D_eff", "Pi/h", "K [mol/m2sPa]", "tau_g [s]"));
             for (TransportAt t : p.at()) {
-                out.println(String.format(Locale.ROOT, "    %-8s %9s %11s %11s %11s %11s %13s %11s", t.label(),
+                out.println(String.format(Locale.ROOT, "    %-8s %9s %11s %11s %11s %11s %13s %13s %11s", t.label(),
                         Numbers4.fixed1(t.temperatureK() - C0), sig(t.knudsenM2PerS()), sig(t.molecularM2PerS()),
-                        sig(t.poreM2PerS()), sig(t.effectiveM2PerS()), sig(t.permeance()), sig(t.relaxationTimeS())));
+                        sig(t.poreM2PerS()), sig(t.effectiveM2PerS()), sig(t.solidPermeance()), sig(t.permeance()),
+                        sig(t.relaxationTimeS())));
             }
         }
-        out.println("    (D_m inf: vacuum; tau_g = V_g/(R T K) with the freed cavity, the longest; viscous flow left out)");
+        out.println("    (D_m inf: vacuum; Pi/h: permeance through the solid, K = D_eff/(R T h) + Pi/h; tau_g = V_g/(R T K) "
+                + "with the freed cavity, the longest; viscous flow left out)");
         for (CaseDiagnostics.Onset o : d.onsets()) {
             out.println("  Component '" + o.component() + "' reaches k = 1e-3 1/s at " + c(o.temperatureK())
                     + (o.temperatureK() > d.ceilingK() ? "  -- above the ceiling: it will hardly decompose" : ""));

@@ -17,6 +17,7 @@ import org.exhale.fitting.KineticsReport;
 import org.exhale.fitting.ModelFitOptions;
 import org.exhale.fitting.ModelFitResult;
 import org.exhale.fitting.ModelKind;
+import org.exhale.fitting.Pretreatment;
 import org.exhale.fitting.TgaRun;
 import org.exhale.io.ErrorKind;
 import org.exhale.io.FitCsvWriter;
@@ -43,9 +44,14 @@ import picocli.CommandLine.Spec;
             "converts mass to conversion, measures each run's real heating rate, computes E(alpha) by",
             "Friedman, KAS, Ozawa-Flynn-Wall, Starink and Vyazovkin with confidence intervals, Kissinger's",
             "peak E and A, and fits 1 to 3 parallel components to all runs at once along their measured",
-            "temperature. Writes kinetics.yaml (a polymer components block for a case file),",
+            "temperature. Before that, an early separate mass-loss step (moisture, solvent) is cut off,",
+            "a sloping end plateau (drift, buoyancy) is corrected, and optionally a thermal lag.",
+            "The number of components is chosen by an information criterion with an effective sample",
+            "size, and a new component must carry at least 3 %% of the mass and differ from the others.",
+            "Writes kinetics.yaml (a polymer components block for a case file),",
             "isoconversional.csv, fit.csv and fit.json to the output folder."},
-        footer = {"", "Exit codes: 0 success, 2 bad input (the message names file, row and column)."})
+        footer = {"", "Exit codes: 0 success, 2 bad input (the message names file, row and column and what to do),",
+            "3 no model fit could be made (isoconversional.csv and fit.json are still written)."})
 public final class FitCommand implements Callable<Integer> {
 
     @Parameters(arity = "1..*", paramLabel = "RUN.csv", description = "TGA runs (CSV).")
@@ -58,7 +64,7 @@ public final class FitCommand implements Callable<Integer> {
     CommonOptions common = new CommonOptions();
 
     @Option(names = "--components", paramLabel = "1|2|3|auto", defaultValue = "auto",
-            description = "Number of parallel components; auto tries 1, 2 and 3 and keeps the lowest BIC (default: ${DEFAULT-VALUE}).")
+            description = "Number of parallel components; auto tries 1, 2 and 3 and keeps what the data support (default: ${DEFAULT-VALUE}).")
     String components;
 
     @Option(names = "--model", paramLabel = "NAME", defaultValue = "nth-order",
@@ -72,6 +78,29 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--residue", paramLabel = "FRACTION",
             description = "Final mass as a share of the initial mass, e.g. '2 %%'; default: each run's final plateau.")
     String residue;
+
+    @Option(names = "--from", paramLabel = "T", description = "Use only samples at or above this sample temperature, e.g. '180 C'.")
+    String from;
+
+    @Option(names = "--to", paramLabel = "T", description = "Use only samples at or below this sample temperature, e.g. '450 C'.")
+    String to;
+
+    @Option(names = "--keep-early-step", description = "Keep an early separate mass-loss step (moisture, solvent) instead of cutting it off.")
+    boolean keepEarlyStep;
+
+    @Option(names = "--no-drift-correction", description = "Only warn about a sloping end plateau instead of subtracting its slope.")
+    boolean noDriftCorrection;
+
+    @Option(names = "--lag", paramLabel = "TIME", description = "Correct the recorded temperature for a first-order thermal lag of the sample, e.g. '10 s'.")
+    String lag;
+
+    @Option(names = "--temperature-column", paramLabel = "NAME",
+            description = "Which column holds the sample temperature when a file has several (its header text or its number from 1).")
+    String temperatureColumn;
+
+    @Option(names = "--segment", paramLabel = "N",
+            description = "Use only this segment (block or segment-column value) of files with several; default: every heating segment as a run.")
+    String segment;
 
     @Option(names = "--molar-mass", paramLabel = "M", defaultValue = "100 g/mol",
             description = "Product molar mass written to kinetics.yaml, not fitted (default: ${DEFAULT-VALUE}).")
@@ -132,9 +161,21 @@ public final class FitCommand implements Callable<Integer> {
             throw new InputException(ErrorKind.BAD_ARGUMENT, "command line", residue == null ? "--range" : "--range/--residue", 0, e.getMessage());
         }
 
-        TgaCsvReader reader = new TgaCsvReader();
+        double fromK = from == null ? Double.NaN : option("--from", from, UnitKind.TEMPERATURE, false);
+        double toK = to == null ? Double.NaN : option("--to", to, UnitKind.TEMPERATURE, false);
+        double lagS = lag == null ? 0 : option("--lag", lag, UnitKind.TIME, false);
+        Pretreatment pre;
+        try {
+            pre = new Pretreatment(fromK, toK, keepEarlyStep, lagS, !noDriftCorrection);
+        } catch (IllegalArgumentException e) {
+            throw new InputException(ErrorKind.BAD_ARGUMENT, "command line", lag != null ? "--lag" : "--from/--to", 0,
+                    e.getMessage());
+        }
+
+        TgaCsvReader reader = new TgaCsvReader().withTemperatureColumn(temperatureColumn).withSegment(segment);
         List<TgaRun> runs = new ArrayList<>();
         List<String> notes = new ArrayList<>();
+        Map<String, Map<String, String>> metadata = new LinkedHashMap<>();
         java.util.Map<Path, Path> seenFiles = new java.util.HashMap<>();
         for (Path f : runFiles) {
             Path key = f.toAbsolutePath().normalize();
@@ -163,34 +204,43 @@ public final class FitCommand implements Callable<Integer> {
                 runs.add(run);
             }
             notes.addAll(r.notes());
+            metadata.putAll(r.metadata());
         }
-        for (String n : notes) {
-            err.println(n);
+        boolean quiet = common.quiet;
+        if (!quiet) {
+            for (String n : notes) {
+                err.println(n);
+            }
         }
         ModelFitOptions fitOptions = new ModelFitOptions(k, kind, maxPoints, 1e-4, analysis.confidence(), 300);
         KineticsReport report;
         try {
-            report = KineticsAnalysis.run(runs, analysis, fitOptions, auto);
+            report = KineticsAnalysis.run(runs, analysis, pre, fitOptions, auto, stage -> {
+                if (!quiet) {
+                    err.printf(Locale.ROOT, "[%5.1f s] %s%n", (System.nanoTime() - started) / 1e9, stage);
+                    err.flush();
+                }
+            });
         } catch (IllegalArgumentException e) {
             throw new InputException(ErrorKind.INCONSISTENT, runFiles.size() == 1 ? runFiles.get(0).toString() : "runs",
                     "", 0, e.getMessage());
         }
         ModelFitResult chosen = report.chosen();
-        if (chosen == null) {
-            throw new InputException(ErrorKind.INCONSISTENT, "runs", "model fit", 0,
-                    "no model fit converged: " + report.failures());
-        }
-        for (FittedComponent c : chosen.components()) {
-            // The case-file records validate themselves; a fit outside their ranges is not written.
-            try {
-                new Component(c.name(), c.fraction(), c.model(), c.preExponentialPerS(), c.energyJPerMol(), 0,
-                        new Product(molarMassKg, diameterM, 1e-5));
-            } catch (IllegalArgumentException e) {
-                throw new InputException(ErrorKind.OUT_OF_RANGE, "runs", "model fit " + c.name(), 0,
-                        "fitted component is outside the case-file ranges: " + e.getMessage());
+        List<String> extraWarnings = new ArrayList<>();
+        if (chosen != null) {
+            for (FittedComponent c : chosen.components()) {
+                // The case-file records validate themselves; a fit outside their ranges is not written.
+                try {
+                    new Component(c.name(), c.fraction(), c.model(), c.preExponentialPerS(), c.energyJPerMol(), 0,
+                            new Product(molarMassKg, diameterM, 1e-5));
+                } catch (IllegalArgumentException e) {
+                    extraWarnings.add("kinetics.yaml not written: component " + c.name()
+                            + " is outside the case-file ranges (" + e.getMessage() + ")");
+                    chosen = null;
+                    break;
+                }
             }
         }
-
         double charFraction;
         String charOrigin;
         if (!Double.isNaN(residueFraction)) {
@@ -208,12 +258,6 @@ public final class FitCommand implements Callable<Integer> {
             charOrigin = "mean final-plateau mass over the runs, same for every component";
         }
 
-        List<String> header = new ArrayList<>();
-        header.add("Kinetics fitted by 'exhale fit' from " + runs.size() + " run(s) at " + rates(report) + " K/min.");
-        header.add(chosen.components().size() + " component(s), " + kind.id() + (auto ? ", chosen by the lowest BIC of 1-3" : "")
-                + String.format(Locale.ROOT, "; rms residual of alpha %.2e.", chosen.rms()));
-        header.add("Intervals and the isoconversional check are in fit.json and isoconversional.csv.");
-
         Map<String, Object> settings = new LinkedHashMap<>();
         settings.put("files", runFiles.stream().map(Path::toString).toList());
         settings.put("alpha_range", List.of(analysis.alphaMin(), analysis.alphaMax()));
@@ -221,20 +265,51 @@ public final class FitCommand implements Callable<Integer> {
         settings.put("residue", Double.isNaN(residueFraction) ? "final plateau" : residueFraction);
         settings.put("model", kind.id());
         settings.put("components", components);
+        settings.put("component_criterion", "BIC with effective sample size N_eff (lag-1 residual autocorrelation) "
+                + "plus: fraction >= 3 %, components distinct, rms gain >= 10 % and 2e-4");
         settings.put("max_points_per_run", maxPoints);
         settings.put("seed_conversion", fitOptions.seedConversion());
         settings.put("confidence", analysis.confidence());
+        settings.put("from_K", Double.isNaN(fromK) ? null : fromK);
+        settings.put("to_K", Double.isNaN(toK) ? null : toK);
+        settings.put("keep_early_step", keepEarlyStep);
+        settings.put("drift_correction", !noDriftCorrection);
+        settings.put("lag_s", lagS);
+        List<String> allWarnings = new ArrayList<>(report.warnings());
+        allWarnings.addAll(extraWarnings);
+        if (chosen == null) {
+            folder.put("isoconversional.csv", IsoconversionalCsvWriter.format(report.isoconversional()));
+            folder.put("fit.json", FitJsonWriter.format(report, settings, notes, allWarnings, metadata));
+            folder.commit();
+            if (!quiet) {
+                summary(out, report);
+            }
+            for (String w : allWarnings) {
+                err.println("warning: " + w);
+            }
+            err.printf(Locale.ROOT, "wrote isoconversional.csv, fit.json to %s; no kinetics.yaml (no usable model fit)%n",
+                    output);
+            return Main.VIOLATED;
+        }
+        List<String> header = new ArrayList<>();
+        header.add("Kinetics fitted by 'exhale fit' from " + runs.size() + " run(s) at " + rates(report) + " K/min.");
+        header.add(chosen.components().size() + " component(s), " + kind.id() + (auto ? ", chosen among 1-3 by BIC with an effective sample size" : "")
+                + String.format(Locale.ROOT, "; rms residual of alpha %.2e.", chosen.rms()));
+        header.add("Intervals and the isoconversional check are in fit.json and isoconversional.csv.");
 
         // all four files at once, never half-written, an existing non-empty folder only with --force
         folder.put("kinetics.yaml", KineticsYamlWriter.format(chosen, charFraction, charOrigin,
                 molarMassKg * 1e3, diameterM * 1e9, header));
         folder.put("isoconversional.csv", IsoconversionalCsvWriter.format(report.isoconversional()));
         folder.put("fit.csv", FitCsvWriter.format(chosen));
-        folder.put("fit.json", FitJsonWriter.format(report, settings, notes));
+        folder.put("fit.json", FitJsonWriter.format(report, settings, notes, allWarnings, metadata));
         folder.commit();
 
+        if (quiet) {
+            return 0;
+        }
         summary(out, report);
-        for (String w : report.warnings()) {
+        for (String w : allWarnings) {
             err.println("warning: " + w);
         }
         err.printf(Locale.ROOT, "wrote kinetics.yaml, isoconversional.csv, fit.csv, fit.json to %s (%.2f s)%n",
@@ -258,40 +333,61 @@ public final class FitCommand implements Callable<Integer> {
             for (double a : new double[] {0.1, 0.3, 0.5, 0.7, 0.9}) {
                 out.printf(Locale.ROOT, "  %5.2f ", a);
                 for (IsoconversionalResult r : report.isoconversional()) {
-                    out.printf(Locale.ROOT, " %8.1f ± %-7s", r.energyAt(a) / 1e3, pm(r.halfWidthAt(a) / 1e3, "%.1f"));
+                    out.printf(Locale.ROOT, " %8.1f ± %-7.1f", r.energyAt(a) / 1e3, r.halfWidthAt(a) / 1e3);
                 }
                 out.println();
             }
         }
         if (report.kissinger() != null) {
-            out.printf(Locale.ROOT, "Kissinger: Ea %.1f ± %s kJ/mol, A %.3e 1/s%n", report.kissinger().energyJPerMol() / 1e3,
-                    pm(report.kissinger().energyHalfWidthJPerMol() / 1e3, "%.1f"), report.kissinger().preExponentialPerS());
+            out.printf(Locale.ROOT, "Kissinger: Ea %.1f ± %.1f kJ/mol, A %.3e 1/s%s%n", report.kissinger().energyJPerMol() / 1e3,
+                    report.kissinger().energyHalfWidthJPerMol() / 1e3, report.kissinger().preExponentialPerS(),
+                    report.kissinger().flagged() ? String.format(Locale.ROOT, "   FLAGGED: E(alpha) varies by %.0f %%, not one step",
+                            100 * report.kissinger().energySpread()) : "");
         }
-        out.println("Model fits (criterion: lowest BIC):");
+        out.printf(Locale.ROOT, "Model fits (criterion: BIC with effective sample size N_eff %.0f, see docs/model.md):%n",
+                report.effectivePoints());
+        int chosenK = report.chosen() == null ? 0 : report.chosen().components().size();
         for (ModelFitResult f : report.fits()) {
-            out.printf(Locale.ROOT, "  %d component(s): rms %.2e  AIC %.1f  BIC %.1f%s%n", f.components().size(), f.rms(),
-                    f.aic(), f.bic(), f == report.chosen() ? "   <- chosen" : "");
+            int k = f.components().size();
+            out.printf(Locale.ROOT, "  %d component(s): rms %.2e  %s%s%n", k, f.rms(),
+                    report.verdicts().getOrDefault(k, ""), k == chosenK ? "   <- chosen" : "");
+        }
+        for (Map.Entry<String, String> f : report.failures().entrySet()) {
+            out.printf(Locale.ROOT, "  %s: failed, %s%n", f.getKey(), f.getValue());
+        }
+        if (report.families().size() > 1) {
+            out.print("Model families with " + chosenK + " component(s), rms:");
+            for (var ff : report.families()) {
+                out.printf(Locale.ROOT, "  %s %s", ff.family().id(), ff.failure() == null ? String.format(Locale.ROOT, "%.2e", ff.rms()) : "failed");
+            }
+            out.println();
+        }
+        if (report.chosen() == null) {
+            return;
         }
         for (FittedComponent c : report.chosen().components()) {
-            out.printf(Locale.ROOT, "  %s: fraction %.3f ± %s  Ea %.2f ± %s kJ/mol  A %.3e 1/s (ln A ± %s)  %s %s%n",
-                    c.name(), c.fraction(), pm(c.fractionHalfWidth(), "%.3f"), c.energyJPerMol() / 1e3,
-                    pm(c.energyHalfWidthJPerMol() / 1e3, "%.2f"), c.preExponentialPerS(), pm(c.lnPreExponentialHalfWidth(), "%.2f"),
+            out.printf(Locale.ROOT, "  %s: fraction %.3f %s  Ea %.2f %s kJ/mol  A %.3e 1/s (ln A ± %.2f)  %s %s%n",
+                    c.name(), c.fraction(), pm(c.fractionHalfWidth(), 1, "%.3f"), c.energyJPerMol() / 1e3,
+                    pm(c.energyHalfWidthJPerMol(), 1e3, "%.2f"), c.preExponentialPerS(), c.lnPreExponentialHalfWidth(),
                     c.model().id(), shape(c));
         }
+        out.println("  intervals: " + report.intervalMethod());
     }
 
-    /** A confidence half-width, or "n/a" where it cannot be computed (too few runs leave no degrees of freedom). */
-    private static String pm(double halfWidth, String format) {
-        return Double.isFinite(halfWidth) ? String.format(Locale.ROOT, format, halfWidth) : "n/a";
+    private static String pm(double hw, double scale, String fmt) {
+        return Double.isFinite(hw) ? "± " + String.format(Locale.ROOT, fmt, hw / scale) : "(at a bound)";
     }
 
     private static String shape(FittedComponent c) {
         double[] s = c.shape();
-        return switch (s.length) {
-            case 1 -> String.format(Locale.ROOT, "n %.3f", s[0]);
-            case 2 -> String.format(Locale.ROOT, "m %.3f n %.3f", s[0], s[1]);
-            default -> "";
-        };
+        double[] hw = c.shapeHalfWidth();
+        String[] names = s.length == 2 ? new String[] {"m", "n"} : new String[] {"n"};
+        StringBuilder sb = new StringBuilder();
+        for (int i = 0; i < s.length; i++) {
+            sb.append(i > 0 ? " " : "").append(names[i]).append(' ').append(String.format(Locale.ROOT, "%.3f", s[i]))
+                    .append(c.atBound().contains(names[i]) ? " (at bound)" : String.format(Locale.ROOT, " ± %.3f", hw[i]));
+        }
+        return sb.toString();
     }
 
     private static String rates(KineticsReport report) {

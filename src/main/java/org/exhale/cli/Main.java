@@ -18,7 +18,7 @@ import picocli.CommandLine.Command;
                 RobustCommand.class, FitCommand.class, ReportCommand.class, DemoCommand.class, BenchCommand.class,
                 SchemaCommand.class, CompletionCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 all limits met; 1 internal error; 2 bad input; 3 a limit is violated; "
-                + "4 no feasible recipe."})
+                + "4 no feasible recipe; 130 stopped with Ctrl-C (compare and robust keep the work done)."})
 public final class Main implements Runnable {
     public static final int OK = 0;
     public static final int INTERNAL = 1;

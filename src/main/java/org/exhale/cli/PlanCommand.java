@@ -89,6 +89,8 @@ final class PlanCommand implements Callable<Integer> {
         m.put("total_with_cooldown_s", SummaryJsonWriter.num(p.totalS()));
         m.put("lower_bound_s", SummaryJsonWriter.num(p.lowerBound().boundS()));
         m.put("bound_ratio", SummaryJsonWriter.num(p.boundRatio()));
+        m.put("ride_s", SummaryJsonWriter.num(p.rideS()));
+        m.put("ride_ratio", SummaryJsonWriter.num(p.rideRatio()));
         m.put("lower_bound_rigorous", p.boundRigorous());
         m.put("ceiling_only_lower_bound_s", SummaryJsonWriter.num(p.lowerBound().ceilingOnlyBoundS()));
         m.put("lower_bound_note", p.boundRigorous()
@@ -154,6 +156,10 @@ final class PlanCommand implements Callable<Integer> {
         sb.append(String.format(Locale.ROOT, "Lower bound: %.1f min; planned/bound = %s%s%n", p.lowerBound().boundS() / 60,
                 Numbers.sig(p.boundRatio(), 4), p.boundRigorous() ? "" : " (bound approximate: gas not quasi-steady; ceiling-only bound "
                         + Numbers.fixed(p.lowerBound().ceilingOnlyBoundS() / 60, 1) + " min)"));
+        if (Double.isFinite(p.rideS())) {
+            sb.append(String.format(Locale.ROOT, "Closed-loop ride (unlimited steps): %.1f min; planned/ride = %s%n",
+                    p.rideS() / 60, Numbers.sig(p.rideRatio(), 4)));
+        }
         sb.append("Verified: ").append(p.verified() ? "yes, the rounded recipe meets every limit at every corner" : "NO").append('\n');
         for (Margin m : p.verification().margins()) {
             sb.append("  ").append(TextSummary.line(m)).append('\n');

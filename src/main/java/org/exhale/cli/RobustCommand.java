@@ -231,6 +231,9 @@ final class RobustCommand implements Callable<Integer> {
         t.put("p95_s", SummaryJsonWriter.num(sum.p95S()));
         t.put("p" + Numbers.sig(quantile * 100, 4) + "_s", SummaryJsonWriter.num(sum.pqS()));
         t.put("not_reached", sum.notReached());
+        // the residue limit is judged here: a sample violates it exactly when its time to target is later
+        t.put("residue_checkpoint", SummaryJsonWriter.checkpoint(recipe.residueCheckpoint()));
+        t.put("later_than_checkpoint", sum.lateSamples(recipe.residueCheckpoint().timeS()));
         t.put("note", "quantiles by linear interpolation of order statistics (Hyndman and Fan definition 7); a sample "
                 + "that never reaches the residue target counts as infinitely slow (null)");
         m.put("time_to_target", t);
@@ -251,7 +254,7 @@ final class RobustCommand implements Callable<Integer> {
         m.put("cautions", Cautions.BAKE);
         folder.put("robust.json", SummaryJsonWriter.toJson(m));
         folder.commit();
-        return text(sum, limits, s, rp);
+        return text(sum, limits, s, rp, recipe);
     }
 
     static List<Object> risks(RobustStudy.Summary sum) {
@@ -336,7 +339,7 @@ final class RobustCommand implements Callable<Integer> {
         return m;
     }
 
-    private String text(RobustStudy.Summary sum, List<String> limits, long s, RobustStudy.RobustPlan rp) {
+    private String text(RobustStudy.Summary sum, List<String> limits, long s, RobustStudy.RobustPlan rp, Recipe recipe) {
         StringBuilder sb = new StringBuilder();
         sb.append(String.format(Locale.ROOT, "Seed %d, %d samples%n", s, sum.n()));
         if (rp != null) {
@@ -364,6 +367,9 @@ final class RobustCommand implements Callable<Integer> {
                 Numbers.fixed(org.exhale.studies.SampleStatistics.binomialStandardError(sum.anyViolations(), sum.n()), 4)));
         sb.append(String.format(Locale.ROOT, "Time to target: P50 %s min, P95 %s min%s%n", min(sum.p50S()), min(sum.p95S()),
                 sum.notReached() > 0 ? " (" + sum.notReached() + " samples never reach it)" : ""));
+        var at = recipe.residueCheckpoint();
+        sb.append(String.format(Locale.ROOT, "  the target applies at the %s, %s min: %d of %d samples reach it later%n",
+                at.describe(), Numbers.fixed(at.timeS() / 60, 1), sum.lateSamples(at.timeS()), sum.n()));
         sb.append("Sensitivity (Spearman rank correlation):\n");
         sb.append(String.format(Locale.ROOT, "  %-4s %-32s %16s %16s%n", "rank", "parameter", "smallest margin", "time to target"));
         int rank = 0;

@@ -13,15 +13,21 @@ import java.util.Locale;
 public final class Advice {
     /** Heating-rate span (max/min) below which the regressions are poorly conditioned. */
     public static final double MIN_RATE_SPAN = 3;
-    /** Relative spread of E(α) above which the process is taken as multi-step. */
-    public static final double MAX_ENERGY_SPREAD = 0.2;
     /** Largest departure of T(t) from a straight line over the reaction range, as a share of its span. */
     public static final double MAX_RAMP_DEVIATION = 0.01;
 
     private Advice() {
     }
 
+    /** Fewest samples across the reaction range of the fastest run before sampling is called coarse. */
+    public static final int MIN_REACTION_SAMPLES = 40;
+
     public static List<String> warnings(List<ConversionCurve> runs, IsoconversionalResult reference) {
+        return warnings(runs, reference, null);
+    }
+
+    public static List<String> warnings(List<ConversionCurve> runs, IsoconversionalResult reference,
+                                        KissingerResult kissinger) {
         List<String> w = new ArrayList<>();
         if (runs.size() < 3) {
             w.add("only " + runs.size() + " heating rate(s): at least three (better 3 to 5) are needed for "
@@ -45,12 +51,29 @@ public final class Advice {
                         + "Kissinger) are biased, prefer Vyazovkin and the model fit", c.label(), c.heatingMaxDevK(), span));
             }
         }
+        ConversionCurve fastest = null;
+        for (ConversionCurve c : runs) {
+            if (fastest == null || c.heatingRateKPerS() > fastest.heatingRateKPerS()) {
+                fastest = c;
+            }
+        }
+        if (fastest != null) {
+            int samples = fastest.reactionTo() - fastest.reactionFrom() + 1;
+            if (samples < MIN_REACTION_SAMPLES) {
+                double[] t = fastest.timeS();
+                double duration = t[fastest.reactionTo()] - t[fastest.reactionFrom()];
+                w.add(String.format(Locale.ROOT, "run %s: only %d samples across the reaction at the fastest rate; "
+                        + "derivatives (Friedman, Kissinger) are coarse; sample at least every %.2g s", fastest.label(),
+                        samples, duration / MIN_REACTION_SAMPLES));
+            }
+        }
         if (reference != null) {
-            double spread = reference.relativeSpread();
-            if (spread > MAX_ENERGY_SPREAD) {
-                w.add(String.format(Locale.ROOT, "E(alpha) by %s varies by %.0f %% over the range: the process is "
-                        + "likely multi-step; Kissinger's single E is not meaningful, use the multi-component fit",
-                        reference.method().id(), spread * 100));
+            double spread = reference.relativeSpread(0.1, 0.9);
+            if (spread > Kissinger.MAX_SPREAD) {
+                w.add(String.format(Locale.ROOT, "E(alpha) by %s varies by %.0f %% of its mean over alpha 0.1-0.9, more "
+                        + "than the 10-20 %% the ICTAC recommendations allow for one step: the process is likely "
+                        + "multi-step; Kissinger's single E is not meaningful%s, use the multi-component fit",
+                        reference.method().id(), spread * 100, kissinger != null ? " (flagged in fit.json)" : ""));
             }
         }
         return w;

@@ -35,7 +35,9 @@ public final class Conversion {
             throw new IllegalArgumentException("run " + run.label() + ": conversion never reaches "
                     + (rawFrom < 0 ? options.alphaMin() : options.alphaMax()) + "; is the run complete?");
         }
-        int half = Math.max(3, (int) Math.round(options.smoothingFraction() * (rawTo - rawFrom)));
+        // At least one neighbour each side (the parabola through three samples); coarse runs are not
+        // smoothed across the whole reaction.
+        int half = Math.max(1, (int) Math.round(options.smoothingFraction() * (rawTo - rawFrom)));
         half = Math.min(half, (n - 1) / 2);
         LocalPolynomial.Smoothed s = LocalPolynomial.quadratic(t, alpha, half);
         double[] as = s.value();
@@ -77,7 +79,68 @@ public final class Conversion {
                 kp = i;
             }
         }
+        double[] peak = peak(t, temp, rate, kp);
+        double peakT = peak[0];
+        double peakTemp = peak[1];
+        return new ConversionCurve(run.label(), t, temp, alpha, as, rate, heating.slope(), heating.maxAbsResidual(),
+                m0, mEnd, from, to, grid, gt, gT, gr, peakT, peakTemp);
+    }
+
+    /** Share of the peak rate above which the top of the peak is fitted. */
+    static final double PEAK_TOP_SHARE = 0.9;
+
+    /**
+     * Time and temperature of the rate peak by a least-squares cubic through the smoothed rate over
+     * the top of the peak (every sample around the largest one with a rate of at least
+     * {@link #PEAK_TOP_SHARE} of it), where its slope vanishes: many samples share the noise, and the
+     * cubic term absorbs the asymmetry of a reaction peak. Fewer than 7 samples on top: the parabola
+     * through the three around the largest.
+     */
+    static double[] peak(double[] t, double[] temp, double[] rate, int kp) {
+        int n = t.length;
+        int lo = kp, hi = kp;
+        while (lo > 0 && rate[lo - 1] >= PEAK_TOP_SHARE * rate[kp]) {
+            lo--;
+        }
+        while (hi < n - 1 && rate[hi + 1] >= PEAK_TOP_SHARE * rate[kp]) {
+            hi++;
+        }
         double peakT = t[kp];
+        if (hi - lo + 1 >= 7) {
+            double scale = Math.max(t[hi] - t[kp], t[kp] - t[lo]);
+            double[][] a = new double[hi - lo + 1][4];
+            double[] b = new double[hi - lo + 1];
+            for (int i = lo; i <= hi; i++) {
+                double u = (t[i] - t[kp]) / scale;
+                a[i - lo] = new double[] {1, u, u * u, u * u * u};
+                b[i - lo] = rate[i];
+            }
+            double[] c = new org.hipparchus.linear.QRDecomposition(new org.hipparchus.linear.Array2DRowRealMatrix(a, false))
+                    .getSolver().solve(new org.hipparchus.linear.ArrayRealVector(b, false)).toArray();
+            // c1 + 2 c2 u + 3 c3 u² = 0: the root with negative curvature nearest u = 0.
+            double best = Double.NaN;
+            if (Math.abs(c[3]) < 1e-12 * Math.abs(c[2])) {
+                best = c[2] < 0 ? -c[1] / (2 * c[2]) : Double.NaN;
+            } else {
+                double disc = 4 * c[2] * c[2] - 12 * c[3] * c[1];
+                if (disc >= 0) {
+                    for (double sign : new double[] {-1, 1}) {
+                        double u = (-2 * c[2] + sign * Math.sqrt(disc)) / (6 * c[3]);
+                        double curv = 2 * c[2] + 6 * c[3] * u;
+                        if (curv < 0 && (Double.isNaN(best) || Math.abs(u) < Math.abs(best))) {
+                            best = u;
+                        }
+                    }
+                }
+            }
+            double uLo = (t[lo] - t[kp]) / scale, uHi = (t[hi] - t[kp]) / scale;
+            if (Double.isFinite(best) && best >= uLo && best <= uHi) {
+                peakT = t[kp] + best * scale;
+                int j = Math.max(1, TemperatureIntegral.upperIndex(t, peakT));
+                double f = (peakT - t[j - 1]) / (t[j] - t[j - 1]);
+                return new double[] {peakT, temp[j - 1] + f * (temp[j] - temp[j - 1])};
+            }
+        }
         double peakTemp = temp[kp];
         if (kp > 0 && kp < n - 1) {
             double r0 = rate[kp - 1], r1 = rate[kp], r2 = rate[kp + 1];
@@ -86,7 +149,6 @@ public final class Conversion {
             double d0 = (r1 - r0) / (t1 - t0), d1 = (r2 - r1) / (t2 - t1);
             double curv = (d1 - d0) / (t2 - t0);
             if (curv < 0) {
-                // Newton form p(t) = r0 + d0 (t − t0) + curv (t − t0)(t − t1); p'(t) = 0 at the vertex.
                 double vertex = Math.max(t0, Math.min(t2, (t0 + t1) / 2 - d0 / (2 * curv)));
                 peakT = vertex;
                 int j = vertex <= t1 ? kp : kp + 1;
@@ -94,8 +156,7 @@ public final class Conversion {
                 peakTemp = temp[j - 1] + f * (temp[j] - temp[j - 1]);
             }
         }
-        return new ConversionCurve(run.label(), t, temp, alpha, as, rate, heating.slope(), heating.maxAbsResidual(),
-                m0, mEnd, from, to, grid, gt, gT, gr, peakT, peakTemp);
+        return new double[] {peakT, peakTemp};
     }
 
     private static double mean(double[] v, int from, int to) {

@@ -41,6 +41,42 @@ public final class Isoconversional {
         return method == IsoconversionalMethod.VYAZOVKIN ? vyazovkin(runs, confidence) : linear(method, runs, confidence);
     }
 
+    /**
+     * The results with the approximation bias of KAS, OFW and Starink (against Vyazovkin at each
+     * level) added to their half-widths; unchanged when Vyazovkin is missing.
+     */
+    public static List<IsoconversionalResult> withApproximationBias(List<IsoconversionalResult> results) {
+        IsoconversionalResult v = null;
+        for (IsoconversionalResult r : results) {
+            if (r.method() == IsoconversionalMethod.VYAZOVKIN) {
+                v = r;
+            }
+        }
+        if (v == null) {
+            return results;
+        }
+        double[] ev = v.energyJPerMol();
+        List<IsoconversionalResult> out = new java.util.ArrayList<>();
+        for (IsoconversionalResult r : results) {
+            IsoconversionalMethod m = r.method();
+            if (m != IsoconversionalMethod.KAS && m != IsoconversionalMethod.OFW && m != IsoconversionalMethod.STARINK) {
+                out.add(r);
+                continue;
+            }
+            double[] e = r.energyJPerMol();
+            double[] hw = r.halfWidthJPerMol();
+            double[] bias = new double[e.length];
+            for (int g = 0; g < e.length; g++) {
+                bias[g] = Double.isFinite(e[g]) && Double.isFinite(ev[g]) ? Math.abs(e[g] - ev[g]) : Double.NaN;
+                if (Double.isFinite(bias[g])) {
+                    hw[g] = hw[g] + bias[g];
+                }
+            }
+            out.add(new IsoconversionalResult(m, r.alpha(), e, hw, r.confidence(), bias));
+        }
+        return out;
+    }
+
     private static IsoconversionalResult linear(IsoconversionalMethod method, List<ConversionCurve> runs,
                                                 double confidence) {
         double[] grid = runs.get(0).gridAlpha();

@@ -11,10 +11,14 @@ package org.exhale.fitting;
  * @param confidence             confidence level
  * @param peakTemperatureK       peak temperature of dα/dt of each run [K]
  * @param heatingRateKPerS       measured heating rate of each run [K/s]
+ * @param energySpread           (max − min)/mean of the isoconversional E(α) over α 0.1–0.9 (NaN
+ *                               when no isoconversional result was given)
+ * @param flagged                E(α) varies by more than {@link Kissinger#MAX_SPREAD}: a single
+ *                               Kissinger E is not meaningful
  */
 public record KissingerResult(double energyJPerMol, double energyHalfWidthJPerMol, double lnPreExponential,
                               double lnPreExponentialHalfWidth, double confidence, double[] peakTemperatureK,
-                              double[] heatingRateKPerS) {
+                              double[] heatingRateKPerS, double energySpread, boolean flagged) {
     public KissingerResult {
         peakTemperatureK = peakTemperatureK.clone();
         heatingRateKPerS = heatingRateKPerS.clone();

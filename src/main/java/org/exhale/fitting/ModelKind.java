@@ -46,6 +46,38 @@ public enum ModelKind {
         };
     }
 
+    /** Names of the shape parameters, as in the case file. */
+    public String[] shapeNames() {
+        return switch (this) {
+            case NTH_ORDER, AVRAMI_EROFEEV -> new String[] {"n"};
+            case SESTAK_BERGGREN -> new String[] {"m", "n"};
+            case RANDOM_SCISSION -> new String[0];
+        };
+    }
+
+    /**
+     * Lowest allowed shape values: the case-file ranges (kinetics.ReactionModel), with a reaction
+     * order kept at or above 0.05 (an order near zero is a sign of the wrong family, not a result).
+     */
+    double[] shapeLower() {
+        return switch (this) {
+            case NTH_ORDER -> new double[] {0.05};
+            case SESTAK_BERGGREN -> new double[] {0, 0.05};
+            case AVRAMI_EROFEEV -> new double[] {0.5};
+            case RANDOM_SCISSION -> new double[0];
+        };
+    }
+
+    /** Highest allowed shape values (the case-file ranges). */
+    double[] shapeUpper() {
+        return switch (this) {
+            case NTH_ORDER -> new double[] {10};
+            case SESTAK_BERGGREN -> new double[] {5, 10};
+            case AVRAMI_EROFEEV -> new double[] {4};
+            case RANDOM_SCISSION -> new double[0];
+        };
+    }
+
     /** Shape parameters to start from: n = 1; m = 0.5, n = 1.5; n = 1.5; none. */
     double[] initialShape() {
         return switch (this) {

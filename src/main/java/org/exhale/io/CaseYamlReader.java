@@ -303,9 +303,20 @@ public final class CaseYamlReader {
         double d = pr.requiredQuantity("diameter", UnitKind.LENGTH, 1e-11, 1e-8, "a kinetic diameter in [0.01, 10] nm");
         double dm = pr.quantity("diffusivity", UnitKind.DIFFUSIVITY, ambientDiffusivity, 1e-12, 1,
                 "a diffusivity in (1e-12, 1) m2/s");
+        // the product's own solution–diffusion permeability through the cap's solid; the cap's is the default
+        double pi0 = Double.NaN;
+        double ePi = Double.NaN;
+        if (pr.has("permeability")) {
+            YamlNode p = pr.section("permeability");
+            pi0 = p.requiredQuantity("Pi0", UnitKind.PERMEABILITY, 0, Math.nextDown(1.0), "a permeability in [0, 1) mol/(m s Pa)");
+            ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000] kJ/mol");
+            p.finish();
+        }
         pr.finish();
         c.finish();
-        return build(c, () -> new Component(name, fraction, model, a, e, ch, new Product(m, d, dm)));
+        double fpi0 = pi0;
+        double fePi = ePi;
+        return build(c, () -> new Component(name, fraction, model, a, e, ch, new Product(m, d, dm, fpi0, fePi)));
     }
 
     private static ReactionModel model(YamlNode c) {
@@ -378,11 +389,8 @@ public final class CaseYamlReader {
         if (c.has("permeability")) {
             YamlNode p = c.section("permeability");
             pi0 = p.quantity("Pi0", UnitKind.PERMEABILITY, 0, 0, Math.nextDown(1.0), "a permeability in [0, 1) mol/(m s Pa)");
-            ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000) kJ/mol");
+            ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000] kJ/mol");
             p.finish();
-        }
-        if (e == 0 && pi0 == 0) {
-            warnings.add("the cap is dense (porosity 0) and has no permeability: the gas has no way out");
         }
         double fpi0 = pi0;
         double fePi = ePi;
@@ -574,8 +582,10 @@ public final class CaseYamlReader {
             throw t.get("max_steps").error(ErrorKind.BAD_NUMBER, "max_steps must be a whole number");
         }
         double unload = t.quantity("unload", UnitKind.TEMPERATURE, Double.NaN, 1, 3000, "a temperature such as 150 C");
+        double overshoot = t.quantity("overshoot", UnitKind.TEMPERATURE_DIFFERENCE, 0, 0, 50,
+                "a temperature difference in [0, 50] K such as 2 K");
         t.finish();
-        return build(t, () -> new Tool(up, down, sp, ts, ms, n, unload));
+        return build(t, () -> new Tool(up, down, sp, ts, ms, n, unload, overshoot));
     }
 
     // ---------------------------------------------------------------- chamber
@@ -691,6 +701,11 @@ public final class CaseYamlReader {
             warnings.add("cap.porosity " + b.cap().porosity() + " is above 0.8, unusual for a cap film");
         }
         for (Component c : b.polymer().components()) {
+            double ownPi0 = c.product().hasOwnPermeability() ? c.product().permeabilityPi0() : b.cap().permeabilityPi0();
+            if (b.cap().porosity() == 0 && ownPi0 == 0) {
+                warnings.add("the cap is dense (porosity 0) and gives the product of '" + c.name()
+                        + "' no permeability: that gas has no way out");
+            }
             if (b.cap().porosity() > 0 && c.product().kineticDiameterM() >= 2 * b.cap().poreRadiusM()) {
                 warnings.add("product of '" + c.name() + "' (" + c.product().kineticDiameterM() * 1e9
                         + " nm) does not fit the pores (diameter " + 2 * b.cap().poreRadiusM() * 1e9 + " nm): no diffusion path");

@@ -16,9 +16,35 @@ import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 
-/** Writes the headline figures and margins of a simulated bake as JSON (non-finite numbers as null). */
+/**
+ * Writes the headline figures and margins of a simulated bake as JSON (non-finite numbers as null).
+ * Every JSON file exhale writes goes through {@link #toJson}: decimal numbers are written with nine
+ * significant digits (as in the CSV files), so binary noise such as 0.30000000000000004 or
+ * 1749.9999999999998 never reaches a reader; nine digits keep far more than any input carries.
+ * Values that feed a later computation (recipes, kinetics) go to YAML and CSV files, not to JSON.
+ */
 public final class SummaryJsonWriter {
-    private static final ObjectMapper MAPPER = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+    private static final ObjectMapper MAPPER = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT)
+            .registerModule(new com.fasterxml.jackson.databind.module.SimpleModule("exhale-numbers")
+                    .addSerializer(Double.class, new RoundedDouble()).addSerializer(double.class, new RoundedDouble()));
+
+    /** Nine significant digits, the CSV files' precision; integral values keep one decimal (1513.0). */
+    private static final class RoundedDouble extends com.fasterxml.jackson.databind.ser.std.StdSerializer<Double> {
+        RoundedDouble() {
+            super(Double.class);
+        }
+
+        @Override
+        public void serialize(Double v, com.fasterxml.jackson.core.JsonGenerator g,
+                              com.fasterxml.jackson.databind.SerializerProvider p) throws java.io.IOException {
+            if (v == null || !Double.isFinite(v)) {
+                g.writeNull();
+                return;
+            }
+            String t = Numbers.csv(v == 0 ? 0.0 : v);
+            g.writeNumber(t.contains(".") || t.contains("e") ? t : t + ".0");
+        }
+    }
 
     private SummaryJsonWriter() {
     }
@@ -31,6 +57,8 @@ public final class SummaryJsonWriter {
         m.put("peak_excess_pressure_time_s", num(pc.peakPressure().timeS()));
         m.put("time_to_1pct_s", num(r.timeTo1pctS()));
         m.put("time_to_target_s", num(r.timeToTargetS()));
+        m.put("unconverted_at_checkpoint", num(r.unconvertedAtCheckpoint()));
+        m.put("residue_checkpoint", checkpoint(r.residueCheckpoint()));
         m.put("final_unconverted", num(r.finalUnconverted()));
         m.put("max_wafer_temperature_C", num(r.maxWaferTemperatureK() - PhysicalConstants.ZERO_CELSIUS_K));
         m.put("thermal_dose_s", r.bake().limits().dose() == null ? null : num(r.thermalDoseS()));
@@ -72,6 +100,7 @@ public final class SummaryJsonWriter {
             cm.put("max_relaxation_time_s", num(c.max("relaxation_time_s").value()));
             cm.put("time_to_1pct_s", num(c.timeTo1pctS()));
             cm.put("time_to_target_s", num(c.timeToTargetS()));
+            cm.put("unconverted_at_checkpoint", num(c.unconvertedAtCheckpoint()));
             cm.put("final_unconverted", num(c.finalUnconverted()));
             cm.put("thermal_dose_s", num(c.thermalDoseS()));
             cm.put("mass_balance_error", num(c.massBalanceError()));
@@ -105,11 +134,21 @@ public final class SummaryJsonWriter {
             e.put("time_s", num(g.timeS()));
             e.put("corner", g.corner());
             if (!g.detail().isEmpty()) {
-                e.put("dominant", g.detail());
+                e.put(g.limit().equals("residue") ? "evaluated_at" : "dominant", g.detail());
             }
             out.put(g.limit(), e);
         }
         return out;
+    }
+
+    /** Where the residue target applies: the end of the final hold, or why elsewhere. */
+    public static Map<String, Object> checkpoint(org.exhale.recipe.ResidueCheckpoint at) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("time_s", num(at.timeS()));
+        m.put("step", at.stepIndex() + 1);
+        m.put("final_hold", at.finalHold());
+        m.put("description", at.describe());
+        return m;
     }
 
     /** A finite number, or null. */

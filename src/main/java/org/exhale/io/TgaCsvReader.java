@@ -38,12 +38,19 @@ public final class TgaCsvReader {
     private static final Pattern NUMBER = Pattern.compile("[+-]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][+-]?\\d+)?");
 
     private final long maxBytes;
+    private final String temperatureColumn;
+    private final String segment;
 
-    /** What was read: the runs and one line per decision taken about the columns. */
-    public record Result(List<TgaRun> runs, List<String> notes) {
+    /** What was read: the runs, one line per decision taken, and each run's metadata block. */
+    public record Result(List<TgaRun> runs, List<String> notes, Map<String, Map<String, String>> metadata) {
         public Result {
             runs = List.copyOf(runs);
             notes = List.copyOf(notes);
+            metadata = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(metadata));
+        }
+
+        public Result(List<TgaRun> runs, List<String> notes) {
+            this(runs, notes, Map.of());
         }
     }
 
@@ -57,10 +64,26 @@ public final class TgaCsvReader {
     }
 
     public TgaCsvReader(long maxBytes) {
+        this(maxBytes, null, null);
+    }
+
+    private TgaCsvReader(long maxBytes, String temperatureColumn, String segment) {
         if (maxBytes <= 0) {
             throw new IllegalArgumentException("size cap must be positive, got " + maxBytes);
         }
         this.maxBytes = maxBytes;
+        this.temperatureColumn = temperatureColumn;
+        this.segment = segment;
+    }
+
+    /** A reader that takes the sample temperature from this column (header text or number from 1); null: choose. */
+    public TgaCsvReader withTemperatureColumn(String column) {
+        return new TgaCsvReader(maxBytes, column, segment);
+    }
+
+    /** A reader that keeps only this segment (block number or segment-column value); null: all heating segments. */
+    public TgaCsvReader withSegment(String s) {
+        return new TgaCsvReader(maxBytes, temperatureColumn, s);
     }
 
     public Result read(Path file) {

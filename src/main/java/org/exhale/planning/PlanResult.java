@@ -19,10 +19,14 @@ import org.exhale.simulation.BakeResult;
  * @param evaluations       simulations the search ran
  * @param notes             what the planner did and why (seed used, back-offs)
  * @param infeasibility     null, or why no recipe meets the limits and what would help
+ * @param rideS             time to target of the closed-loop ride with unlimited steps (the planner's
+ *                          backbone), NaN where the plan did not need one (only the ceiling and the
+ *                          ramp bind) or none was found [s]
  */
 public record PlanResult(Recipe recipe, BakeResult verification, double durationS, double totalS,
                          LowerBound.Result lowerBound, boolean boundRigorous, boolean verified, List<String> binding,
-                         int evaluations, List<String> notes, Infeasibility infeasibility) {
+                         int evaluations, List<String> notes, Infeasibility infeasibility,
+                         double rideS) {
 
     /** Why the target cannot be met, and what would help. */
     public record Infeasibility(String limit, String reason, double bestResidue, double withinS, String suggestion) {
@@ -31,6 +35,11 @@ public record PlanResult(Recipe recipe, BakeResult verification, double duration
     public double boundRatio() {
         return lowerBound.boundS() > 0 && Double.isFinite(lowerBound.boundS()) ? durationS / lowerBound.boundS()
                 : Double.NaN;
+    }
+
+    /** Planned time over the ride's: how much the tool's few steps cost against unlimited ones. */
+    public double rideRatio() {
+        return rideS > 0 && Double.isFinite(rideS) ? durationS / rideS : Double.NaN;
     }
 
     public boolean feasible() {

@@ -61,7 +61,7 @@ public final class Planner {
         this.bake = bake;
         this.tool = tool;
         this.startK = bake.recipeStartK();
-        this.capK = floorSetpoint(bake.limits().ceilingK() - bake.wafer().spreadK(), tool.setpointStepK());
+        this.capK = floorSetpoint(tool.highestSetpointK(bake.limits().ceilingK(), bake.wafer().spreadK()), tool.setpointStepK());
         this.search = new SimulationSettings(0, 1e-7, 1e-5, GasRegime.QUASI_STEADY, false);
     }
 
@@ -106,6 +106,10 @@ public final class Planner {
             return diagnose(bound, rigorous, ceilingEval);
         }
         if (!ceilingEval.feasible()) {
+            PlanResult ridden = riderPlan(bound, rigorous);
+            if (ridden != null) {
+                return ridden;
+            }
             Shape rider = riderSeed();
             if (rider != null) {
                 Eval riderEval = evaluate(rider);
@@ -216,7 +220,7 @@ public final class Planner {
                         notes.add("final hold lengthened " + ext + " time(s) so the target is met at its end");
                     }
                     return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
-                            Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null);
+                            Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null, rideS);
                 }
                 lastProof = proof;
                 if (!others.isEmpty()) {
@@ -228,6 +232,209 @@ public final class Planner {
             }
         }
         return diagnose(bound, rigorous, bestEval);
+    }
+
+    /** The closed-loop ride's own time to target (NaN until ridden). */
+    private double rideS = Double.NaN;
+
+    /**
+     * The rider's plan: ride the case closed-loop in the proof's gas regime, place the tool's steps
+     * along the ride, prove the rounded recipe; if the proof fails, ask the rider for a larger margin
+     * (bisection between the failed and a passing margin). Null when no verified recipe came out.
+     */
+    private PlanResult riderPlan(LowerBound.Result bound, boolean rigorous) {
+        Recipe probe = new Recipe(startK, List.of(new Step.Ramp(capK, tool.maxRampUpKPerS()), new Step.Hold(600)));
+        BakeResult pr = BakeSimulator.simulate(bake.withRecipe(probe), SimulationSettings.defaults().withSampleInterval(0));
+        evaluations++;
+        GasRegime regime = pr.corners().stream().anyMatch(c -> c.regime() == GasRegime.FULL_GAS)
+                ? GasRegime.FULL_GAS : GasRegime.QUASI_STEADY;
+        double gasScale = 1;
+        if (regime == GasRegime.FULL_GAS) {
+            InstantLimits il = new InstantLimits(bake);
+            double total = 0;
+            for (int j = 0; j < il.size(); j++) {
+                total += il.gasifiable(j);
+            }
+            double peak = pr.corners().stream().mapToDouble(c -> c.max("stored_mol_m2").value()).max().orElse(0);
+            gasScale = peak > 0 && Double.isFinite(peak) ? peak / total : 1;
+        }
+        Rider rider = new Rider(bake, tool, capK, regime, gasScale);
+        double boundS = bound.boundS();
+        double control = Double.isFinite(boundS) && boundS > 0 ? Math.min(Math.max(boundS / 150, 2), 300) : 30;
+        Rider.Ride ride = rider.ride(control, LONG_HOLD_S);
+        if (Double.isNaN(ride.timeToTargetS())) {
+            notes.add("closed-loop ride: no admissible path to the target within " + minutes(LONG_HOLD_S));
+            return null;
+        }
+        rideS = ride.timeToTargetS();
+        notes.add("closed-loop ride (" + regime.name().toLowerCase(java.util.Locale.ROOT).replace('_', ' ')
+                + " gas, every corner, " + String.format(java.util.Locale.ROOT, "%.0f s", control) + " control interval): "
+                + minutes(rideS) + (ride.admissibleThroughout() ? "" : ", though not admissible throughout"));
+        int ramps = Math.max(1, tool.maxSteps() - 1 - (tool.hasUnload() ? 1 : 0));
+        // knots along the ride for several step counts; the shortest recipe wins
+        Rider.Built best = null;
+        double[] bestKnots = null;
+        for (int m = ramps; m >= Math.max(1, ramps - 1); m--) {
+            double[] knots = knotTimes(ride, m);
+            if (bestKnots != null && java.util.Arrays.equals(knots, bestKnots)) {
+                continue;
+            }
+            Rider.Built b = rider.build(knots, ramps);
+            if (b != null && b.admissibleThroughout() && (best == null || b.holdEndS() < best.holdEndS())) {
+                best = b;
+                bestKnots = knots;
+            }
+        }
+        if (best == null) {
+            notes.add("no recipe along the ride kept every limit within " + ramps + " ramps");
+            return null;
+        }
+        notes.add(best.recipe().steps().size() + " steps placed along the ride: " + minutes(best.holdEndS()) + " predicted");
+        // prove; on failure, bisect the rider's margin between the last failure and a pass
+        double failed = 1;
+        double m = rider.margin();
+        PlanResult passed = null;
+        double passedMargin = Double.NaN;
+        for (int it = 0; it < 8; it++) {
+            PlanResult r = prove(best, bound, rigorous);
+            if (r != null) {
+                passed = r;
+                passedMargin = m;
+                if (it == 0 || passedMargin - failed < 0.002) {
+                    break;
+                }
+            } else {
+                failed = m;
+            }
+            m = passed == null ? 1 + 2.5 * (m - 1) : 0.5 * (failed + passedMargin);
+            if (m > 1.5) {
+                break;
+            }
+            rider.setMargin(m);
+            Rider.Built b = rider.build(bestKnots, ramps);
+            if (b == null || !b.admissibleThroughout()) {
+                if (passed == null) {
+                    continue;
+                }
+                break;
+            }
+            best = b;
+        }
+        evaluations += rider.trials();
+        if (passed != null && passedMargin > 1.0011) {
+            notes.add(String.format(java.util.Locale.ROOT, "the rider kept a margin of %.4f so the rounded recipe passes its proof",
+                    passedMargin));
+        }
+        return passed;
+    }
+
+    /** Simulates a built recipe at every corner (automatic gas regime) and returns the plan if it keeps every limit. */
+    private PlanResult prove(Rider.Built built, LowerBound.Result bound, boolean rigorous) {
+        Recipe recipe = built.recipe();
+        if (recipe.steps().size() > tool.maxSteps()) {
+            return null;
+        }
+        for (int ext = 0; ext <= 4; ext++) {
+            BakeResult proof = BakeSimulator.simulate(bake.withRecipe(recipe), SimulationSettings.defaults().withSampleInterval(10));
+            evaluations++;
+            double holdEnd = holdEnd(recipe);
+            boolean residueLate = Double.isNaN(proof.timeToTargetS()) || proof.timeToTargetS() > holdEnd + 1e-6;
+            List<Margin> others = proof.violated().stream().filter(x -> !x.limit().equals("residue")).toList();
+            if (!others.isEmpty()) {
+                lastProof = proof;
+                return null;
+            }
+            if (!residueLate) {
+                if (ext > 0) {
+                    notes.add("final hold lengthened " + ext + " time(s) so the target is met at its end");
+                }
+                return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
+                        Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null, rideS);
+            }
+            double lateBy = Double.isNaN(proof.timeToTargetS()) ? 0.01 * holdEnd : proof.timeToTargetS() - holdEnd;
+            recipe = extendFinalHold(recipe, Math.max(Math.max(tool.timeStepS(), 1), lateBy));
+        }
+        return null;
+    }
+
+    /**
+     * Times along the ride (after its start) at which m ramps approximate it up to its arrival at the
+     * cap. A ramp that runs above the ride must end lower, one below it heats too little: either way
+     * the bake loses time in proportion to how far the straight line strays from the ride and for how
+     * long. The knots minimise Σ (largest |line − ride|) × duration over the ramps, by dynamic
+     * programming over the ride's points (thinned to at most 160).
+     */
+    private double[] knotTimes(Rider.Ride ride, int m) {
+        double[] tAll = ride.timesS();
+        double[] spAll = ride.setpointsK();
+        int end = tAll.length - 1;
+        for (int i = 0; i < tAll.length; i++) {
+            if (spAll[i] >= capK - 1e-9) {
+                end = i;
+                break;
+            }
+        }
+        int stride = Math.max(1, (end + 159) / 160);
+        List<Integer> idx = new ArrayList<>();
+        for (int i = 0; i < end; i += stride) {
+            idx.add(i);
+        }
+        idx.add(end);
+        int n = idx.size();
+        double[] t = new double[n];
+        double[] sp = new double[n];
+        for (int i = 0; i < n; i++) {
+            t[i] = tAll[idx.get(i)];
+            sp[i] = spAll[idx.get(i)];
+        }
+        if (n <= 1) {
+            return new double[]{tAll[end]};
+        }
+        // cost of one ramp from point a to b (using every original point in between)
+        double[][] cost = new double[n][n];
+        for (int a = 0; a < n; a++) {
+            for (int b = a + 1; b < n; b++) {
+                int ia = idx.get(a);
+                int ib = idx.get(b);
+                double dev = 0;
+                for (int p = ia + 1; p < ib; p++) {
+                    double c = spAll[ia] + (tAll[p] - tAll[ia]) / (tAll[ib] - tAll[ia]) * (spAll[ib] - spAll[ia]);
+                    dev = Math.max(dev, Math.abs(c - spAll[p]));
+                }
+                cost[a][b] = dev * (tAll[ib] - tAll[ia]);
+            }
+        }
+        int segs = Math.min(m, n - 1);
+        double[][] best = new double[segs + 1][n];
+        int[][] from = new int[segs + 1][n];
+        for (double[] row : best) {
+            java.util.Arrays.fill(row, Double.POSITIVE_INFINITY);
+        }
+        best[0][0] = 0;
+        for (int q = 1; q <= segs; q++) {
+            for (int b = 1; b < n; b++) {
+                for (int a = 0; a < b; a++) {
+                    double v = best[q - 1][a] + cost[a][b];
+                    if (v < best[q][b]) {
+                        best[q][b] = v;
+                        from[q][b] = a;
+                    }
+                }
+            }
+        }
+        int q = 1;
+        for (int c = 1; c <= segs; c++) {
+            if (best[c][n - 1] < best[q][n - 1] - 1e-12) {
+                q = c;
+            }
+        }
+        double[] knots = new double[q];
+        int b = n - 1;
+        for (int c = q; c >= 1; c--) {
+            knots[c - 1] = t[b];
+            b = from[c][b];
+        }
+        return knots;
     }
 
     private boolean quasiSteady() {
@@ -699,7 +906,7 @@ public final class Planner {
 
     private PlanResult infeasible(LowerBound.Result bound, boolean rigorous, String limit, String reason, String suggestion) {
         return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
-                new PlanResult.Infeasibility(limit, reason, Double.NaN, Double.NaN, suggestion));
+                new PlanResult.Infeasibility(limit, reason, Double.NaN, Double.NaN, suggestion), rideS);
     }
 
     private PlanResult diagnose(LowerBound.Result bound, boolean rigorous, Eval best) {
@@ -727,7 +934,7 @@ public final class Planner {
             }
             return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
                     new PlanResult.Infeasibility("residue", "the residue target is not reached under the ceiling",
-                            bestU, LONG_HOLD_S, suggestion));
+                            bestU, LONG_HOLD_S, suggestion), rideS);
         }
         Margin proofWorst = lastProof == null ? null
                 : lastProof.violated().stream().filter(m -> !m.limit().equals("residue")).findFirst().orElse(null);
@@ -750,7 +957,7 @@ public final class Planner {
         String reason = atStart < 1 ? "the '" + limit + "' limit fails already at the start temperature"
                 : "no recipe tried keeps the '" + limit + "' limit (best margin " + String.format(java.util.Locale.ROOT, "%.3g", best.minMargin) + ")";
         return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
-                new PlanResult.Infeasibility(limit, reason, bestU, LONG_HOLD_S, suggestion));
+                new PlanResult.Infeasibility(limit, reason, bestU, LONG_HOLD_S, suggestion), rideS);
     }
 
     private double[] initialAlpha() {

@@ -10,10 +10,14 @@ package org.exhale.planning;
  * @param minStepS           shortest step the tool accepts [s]
  * @param maxSteps           most steps in one recipe
  * @param unloadK            temperature to cool to before unloading [K], NaN for no cool-down
+ * @param overshootK         guard band for the controller's overshoot above the setpoint [K], 0 for none
  */
 public record Tool(double maxRampUpKPerS, double maxRampDownKPerS, double setpointStepK, double timeStepS,
-                   double minStepS, int maxSteps, double unloadK) {
+                   double minStepS, int maxSteps, double unloadK, double overshootK) {
     public Tool {
+        if (!(overshootK >= 0 && overshootK <= 50)) {
+            throw new IllegalArgumentException("overshoot must be in [0, 50] K");
+        }
         if (!(maxRampUpKPerS > 0 && maxRampUpKPerS <= 100)) {
             throw new IllegalArgumentException("max_ramp_up must be in (0, 6000] C/min");
         }
@@ -32,6 +36,20 @@ public record Tool(double maxRampUpKPerS, double maxRampDownKPerS, double setpoi
         if (maxSteps < 2 || maxSteps > 100) {
             throw new IllegalArgumentException("max_steps must be in [2, 100]");
         }
+    }
+
+    /** A tool without an overshoot guard band. */
+    public Tool(double maxRampUpKPerS, double maxRampDownKPerS, double setpointStepK, double timeStepS,
+                double minStepS, int maxSteps, double unloadK) {
+        this(maxRampUpKPerS, maxRampDownKPerS, setpointStepK, timeStepS, minStepS, maxSteps, unloadK, 0);
+    }
+
+    /**
+     * The highest setpoint a plan may use [K]: the ceiling less the across-wafer spread and the
+     * overshoot guard band, so that setpoint + overshoot + spread stays at or below the ceiling.
+     */
+    public double highestSetpointK(double ceilingK, double spreadK) {
+        return ceilingK - spreadK - overshootK;
     }
 
     /** A tool with the given rate limits and the usual resolutions (1 K, 1 s, 30 s, 12 steps, no cool-down). */

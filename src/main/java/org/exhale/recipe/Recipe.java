@@ -53,6 +53,11 @@ public record Recipe(double startK, List<Step> steps) {
         return seg.get(seg.size() - 1).endTimeS();
     }
 
+    /** Where the residue target applies: the end of the final hold (see {@link ResidueCheckpoint}). */
+    public ResidueCheckpoint residueCheckpoint() {
+        return ResidueCheckpoint.of(this);
+    }
+
     /** Highest setpoint of the program [K]. */
     public double maxSetpointK() {
         double m = startK;

@@ -149,10 +149,24 @@ final class BakeCharts {
         }
         p.range(floor, 1.5);
         String note = "values below " + ReportText.sig(floor, 2) + " are not drawn";
-        JFreeChart c = ChartStyle.chart("Unconverted polymer", p.build(), subtitle, note);
+        XYPlot plot = p.build();
+        // the target applies at the end of the final hold (the cool-down after it does not count)
+        JsonNode at = margins.path("residue").path("time_s");
+        if (at.isNumber()) {
+            org.jfree.chart.plot.ValueMarker m = new org.jfree.chart.plot.ValueMarker(at.asDouble() / 60, ChartStyle.LIMIT,
+                    ChartStyle.line(2, 2.2f));
+            m.setLabel("residue read here: " + margins.path("residue").path("evaluated_at").asText("end of the final hold"));
+            m.setLabelFont(ChartStyle.NOTE);
+            m.setLabelPaint(ChartStyle.LIMIT);
+            m.setLabelAnchor(org.jfree.chart.ui.RectangleAnchor.TOP_LEFT);
+            m.setLabelTextAnchor(TextAnchor.TOP_RIGHT);
+            m.setLabelOffset(new org.jfree.chart.ui.RectangleInsets(6, 4, 4, 4));
+            plot.addDomainMarker(0, m, org.jfree.chart.ui.Layer.FOREGROUND);
+        }
+        JFreeChart c = ChartStyle.chart("Unconverted polymer", plot, subtitle, note);
         return new Figure("unconverted", "Unconverted polymer",
                 "Fraction of the polymer not yet decomposed, on a log axis, with the residue target the bake must "
-                        + "reach by its end.", c);
+                        + "reach by the end of its final hold (the dashed line; the cool-down after it does not count).", c);
     }
 
     private static XYSeries clipBelow(XYSeries s, double floor) {
@@ -329,7 +343,7 @@ final class BakeCharts {
                 continue;
             }
             String c = worstCorner(limit);
-            String label = limit.equals("residue") ? "residue (applies at the end)" : limit;
+            String label = limit.equals("residue") ? "residue (applies at the end of the final hold)" : limit;
             boolean isBinding = limit.equals(binding);
             if (isBinding) {
                 label += " — binding";

@@ -237,7 +237,7 @@ final class HtmlReport {
 
     private void margins(JsonNode m, String binding) {
         b.append("<table>\n<tr><th>Limit</th><th>Status</th><th>Allowed</th><th>Worst actual</th><th>Margin</th>"
-                + "<th>When</th><th>Corner</th><th>Dominant term</th></tr>\n");
+                + "<th>When</th><th>Corner</th><th>Dominant term or where read</th></tr>\n");
         for (Iterator<Map.Entry<String, JsonNode>> it = m.fields(); it.hasNext(); ) {
             Map.Entry<String, JsonNode> e = it.next();
             JsonNode g = e.getValue();
@@ -259,7 +259,7 @@ final class HtmlReport {
                     .append("<td class=\"num\">").append(escape(margin)).append("</td>")
                     .append("<td class=\"num\">").append(escape(value("time_s", g.path("time_s")))).append("</td>")
                     .append("<td>").append(escape(g.path("corner").asText(""))).append("</td>")
-                    .append("<td>").append(escape(g.path("dominant").asText(""))).append("</td></tr>\n");
+                    .append("<td>").append(escape(g.path("dominant").asText(g.path("evaluated_at").asText("")))).append("</td></tr>\n");
         }
         b.append("</table>\n");
     }

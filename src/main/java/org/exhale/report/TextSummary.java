@@ -26,7 +26,15 @@ public final class TextSummary {
         sb.append("Time to 1 % unconverted: ").append(minutes(r.timeTo1pctS())).append('\n');
         sb.append("Time to residue target ").append(Numbers.sig(r.bake().limits().residue() * 100, 3)).append(" %: ")
                 .append(minutes(r.timeToTargetS())).append('\n');
-        sb.append("Final unconverted polymer: ").append(Numbers.sig(r.finalUnconverted() * 100, 3)).append(" %\n");
+        // the residue target applies at the end of the final hold; the cool-down after it is not counted
+        var at = r.residueCheckpoint();
+        sb.append("Unconverted polymer at the ").append(at.describe()).append(": ")
+                .append(Numbers.sig(r.unconvertedAtCheckpoint() * 100, 3)).append(" % (").append(r.residueCorner().corner())
+                .append(" corner)");
+        if (at.stepIndex() < r.bake().recipe().steps().size() - 1) {
+            sb.append("; after the cool-down ").append(Numbers.sig(r.finalUnconverted() * 100, 3)).append(" %");
+        }
+        sb.append('\n');
         sb.append(String.format(Locale.ROOT, "Max wafer temperature: %.2f C%n", r.maxWaferTemperatureK() - c0));
         if (r.bake().chamber() != null) {
             sb.append(String.format(Locale.ROOT, "Chamber (%d wafers, well mixed): peak load %s sccm, peak %s ppm of products%n",

@@ -267,6 +267,37 @@ final class BakeModel {
         this.segment = s;
     }
 
+    /** Starts a segment with the wafer at a given temperature (a bake resumed from a saved state). */
+    void startSegment(Segment s, double waferAtStartK) {
+        this.segment = s;
+        this.waferAtSegmentStart = waferAtStartK;
+    }
+
+    /**
+     * Absolute tolerances of the states: conversions 1e-12; in the full-gas regime the normalised
+     * moles under the cap 1e-7 of their expected peak {@code gasScale}; dose 1e-6 s; chamber states.
+     */
+    double[] absoluteTolerances(double gasScale) {
+        double[] a = new double[dim];
+        for (int j = 0; j < k; j++) {
+            a[j] = 1e-12;
+        }
+        if (regime == GasRegime.FULL_GAS) {
+            for (int j = 0; j < k; j++) {
+                a[iGas + j] = Math.max(1e-7 * gasScale, 1e-30);
+                a[iVent + j] = 1e-12;
+            }
+        }
+        a[iDose] = 1e-6;
+        if (iChamber >= 0) {
+            for (int j = 0; j < k; j++) {
+                a[iChamber + j] = 1e-14;
+                a[iExhaust + j] = 1e-12;
+            }
+        }
+        return a;
+    }
+
     double[] initialState(double startSetpointK) {
         double[] y = new double[dim];
         System.arraycopy(alpha0, 0, y, 0, k);

@@ -54,11 +54,14 @@ public record BakeResult(BakeCase bake, List<CornerResult> corners, List<Margin>
         return best;
     }
 
-    /** The corner that leaves most polymer (the cold one when there is a spread). */
+    /**
+     * The corner that leaves most polymer where the residue target applies, the end of the final hold
+     * (the cold one when there is a spread).
+     */
     public CornerResult residueCorner() {
         CornerResult best = corners.get(0);
         for (CornerResult c : corners) {
-            if (c.finalUnconverted() > best.finalUnconverted()) {
+            if (c.unconvertedAtCheckpoint() > best.unconvertedAtCheckpoint()) {
                 best = c;
             }
         }
@@ -91,8 +94,19 @@ public record BakeResult(BakeCase bake, List<CornerResult> corners, List<Margin>
         return pressureCorner().peakPressure().value();
     }
 
+    /** Unconverted fraction at the end of the recipe (after any cool-down), at the corner that leaves most. */
     public double finalUnconverted() {
-        return residueCorner().finalUnconverted();
+        return corners.stream().mapToDouble(CornerResult::finalUnconverted).max().orElse(Double.NaN);
+    }
+
+    /** Unconverted fraction where the residue target applies (the end of the final hold), worst corner. */
+    public double unconvertedAtCheckpoint() {
+        return residueCorner().unconvertedAtCheckpoint();
+    }
+
+    /** Where the residue target applies. */
+    public org.exhale.recipe.ResidueCheckpoint residueCheckpoint() {
+        return bake.recipe().residueCheckpoint();
     }
 
     /** Time to the residue target at the slowest corner; NaN if never reached. */

@@ -14,7 +14,9 @@ import java.util.Map;
  * @param atMaximum          the whole history row at each of those maxima
  * @param timeTo1pctS        first time the unconverted fraction reaches 1 %
  * @param timeToTargetS      first time it reaches the residue target
- * @param finalUnconverted   unconverted fraction at the end
+ * @param finalUnconverted   unconverted fraction at the end of the recipe (after any cool-down)
+ * @param unconvertedAtCheckpoint unconverted fraction where the residue target applies: the end of the
+ *                           final hold ({@link org.exhale.recipe.ResidueCheckpoint})
  * @param thermalDoseS       equivalent time at the reference temperature [s]
  * @param massBalanceError   |gasified − vented − stored| / gasified at the end
  * @param columns            history column names (SI units in the suffix)
@@ -23,13 +25,13 @@ import java.util.Map;
  */
 public record CornerResult(String corner, double offsetK, GasRegime regime, double quasiSteadyError,
                            Map<String, Extremum> maxima, Map<String, double[]> atMaximum, double timeTo1pctS, double timeToTargetS,
-                           double finalUnconverted, double thermalDoseS, double massBalanceError,
+                           double finalUnconverted, double unconvertedAtCheckpoint, double thermalDoseS, double massBalanceError,
                            List<String> columns, List<double[]> history, long evaluations) {
 
     /** A copy carrying the quasi-steady error estimate of the pre-run that chose this regime. */
     public CornerResult withQuasiSteadyError(double error) {
         return new CornerResult(corner, offsetK, regime, error, maxima, atMaximum, timeTo1pctS, timeToTargetS, finalUnconverted,
-                thermalDoseS, massBalanceError, columns, history, evaluations);
+                unconvertedAtCheckpoint, thermalDoseS, massBalanceError, columns, history, evaluations);
     }
 
     public Extremum peakPressure() {

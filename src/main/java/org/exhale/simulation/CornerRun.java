@@ -47,6 +47,9 @@ final class CornerRun {
     private double nextSample;
     private double timeTo1pct = Double.NaN;
     private double timeToTarget = Double.NaN;
+    /** The step at whose end the residue target applies, and the unconverted fraction there. */
+    private final int checkpointStep;
+    private double unconvertedAtCheckpoint = Double.NaN;
     private double qsError;
     private double storedPeak;
     private boolean first = true;
@@ -68,6 +71,7 @@ final class CornerRun {
         this.historyInterval = settings.historyIntervalS(recipe.durationS());
         this.settings = settings;
         this.residueTarget = bake.limits().residue();
+        this.checkpointStep = recipe.residueCheckpoint().stepIndex();
         this.corner = corner;
         this.offsetK = offsetK;
         this.columns = model.observableNames();
@@ -94,7 +98,7 @@ final class CornerRun {
     CornerResult run() {
         List<Segment> segments = recipe.segments();
         double[] y = model.initialState(recipe.startK());
-        double[] absTol = absoluteTolerances();
+        double[] absTol = model.absoluteTolerances(gasScale);
         double rtol = settings.relativeTolerance();
         double hNext = 0;
         RosenbrockIntegrator stiff = null;
@@ -128,6 +132,9 @@ final class CornerRun {
                 first = false;
             }
             if (seg.durationS() <= 0) {
+                if (seg.stepIndex() == checkpointStep) {
+                    unconvertedAtCheckpoint = samples[samplesPerStep][model.oUnconverted];
+                }
                 continue;
             }
             try {
@@ -147,6 +154,9 @@ final class CornerRun {
             }
             // segment end always recorded
             double[] last = samples[samplesPerStep];
+            if (seg.stepIndex() == checkpointStep) {
+                unconvertedAtCheckpoint = last[model.oUnconverted];
+            }
             if (historyInterval > 0 && (history.isEmpty() || history.get(history.size() - 1)[0] < last[0])) {
                 history.add(last.clone());
             }
@@ -164,7 +174,7 @@ final class CornerRun {
             rows.put(columns.get(tracked[i]), maxRow[i]);
         }
         return new CornerResult(corner, offsetK, model.regime, qsError, maxima, rows, timeTo1pct, timeToTarget,
-                end[model.oUnconverted], end[model.oDose], balance, columns, history, evaluations);
+                end[model.oUnconverted], unconvertedAtCheckpoint, end[model.oDose], balance, columns, history, evaluations);
     }
 
     /** What state component i means, in the words of the case file. */
@@ -198,27 +208,6 @@ final class CornerRun {
     private static double[] fill(double v, int n) {
         double[] a = new double[n];
         java.util.Arrays.fill(a, v);
-        return a;
-    }
-
-    private double[] absoluteTolerances() {
-        double[] a = new double[model.dim];
-        for (int j = 0; j < model.k; j++) {
-            a[j] = 1e-12;
-        }
-        if (model.regime == GasRegime.FULL_GAS) {
-            for (int j = 0; j < model.k; j++) {
-                a[model.iGas + j] = Math.max(1e-7 * gasScale, 1e-30);
-                a[model.iVent + j] = 1e-12;
-            }
-        }
-        a[model.iDose] = 1e-6;
-        if (model.iChamber >= 0) {
-            for (int j = 0; j < model.k; j++) {
-                a[model.iChamber + j] = 1e-14;
-                a[model.iExhaust + j] = 1e-12;
-            }
-        }
         return a;
     }
 

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 
 import org.exhale.mechanics.CapStructure;
+import org.exhale.recipe.ResidueCheckpoint;
 
 /** Margins to every limit of a case over all simulated corners. */
 final class Margins {
@@ -28,16 +29,16 @@ final class Margins {
         out.add(new Margin("ceiling", limits.ceilingK(), worstT.value(), limits.ceilingK() - worstT.value(),
                 worstT.timeS(), hot.corner(), "K", true, ""));
 
-        // residue at the end of the bake
+        // residue where the target applies: the end of the final hold (the cool-down after it not counted)
         CornerResult slow = corners.get(0);
         for (CornerResult c : corners) {
-            if (c.finalUnconverted() > slow.finalUnconverted()) {
+            if (c.unconvertedAtCheckpoint() > slow.unconvertedAtCheckpoint()) {
                 slow = c;
             }
         }
-        double end = slow.history().isEmpty() ? Double.NaN : slow.history().get(slow.history().size() - 1)[0];
-        out.add(Margin.ratio("residue", limits.residue(), slow.finalUnconverted(),
-                Double.isNaN(end) ? bake.recipe().durationS() : end, slow.corner(), "", ""));
+        ResidueCheckpoint at = bake.recipe().residueCheckpoint();
+        out.add(Margin.ratio("residue", limits.residue(), slow.unconvertedAtCheckpoint(), at.timeS(), slow.corner(), "",
+                at.describe()));
 
         if (Double.isFinite(limits.maxPressurePa())) {
             CornerResult p = corners.get(0);

@@ -39,15 +39,23 @@ public final class CaseDiagnostics {
     private CaseDiagnostics() {
     }
 
-    /** Transport of one product at one temperature. Diffusivities in m²/s; permeance in mol m⁻² s⁻¹ Pa⁻¹. */
+    /**
+     * Transport of one product at one temperature. Diffusivities in m²/s; permeances in mol m⁻² s⁻¹ Pa⁻¹:
+     * {@code permeance} is the whole K_j, {@code solidPermeance} its solution–diffusion share Π_j/h.
+     */
     public record TransportAt(String label, double temperatureK, double knudsenM2PerS, double molecularM2PerS,
-                              double poreM2PerS, double effectiveM2PerS, double permeance,
+                              double poreM2PerS, double effectiveM2PerS, double solidPermeance, double permeance,
                               double relaxationTimeS) {
     }
 
-    /** One product: size exclusion in the pores and transport at room, onset and ceiling temperature. */
+    /**
+     * One product: size exclusion in the pores, its solution–diffusion permeability through the cap's
+     * solid (Π0 [mol m⁻¹ s⁻¹ Pa⁻¹], E [J/mol]; {@code ownPermeability} false where the cap's default
+     * applies) and transport at room, onset and ceiling temperature.
+     */
     public record ProductTransport(String component, double molarMassKgPerMol, double kineticDiameterM,
-                                   double stericFactor, List<TransportAt> at) {
+                                   double stericFactor, double permeabilityPi0, double permeationActivationJPerMol,
+                                   boolean ownPermeability, List<TransportAt> at) {
         public ProductTransport {
             at = List.copyOf(at);
         }
@@ -166,8 +174,11 @@ public final class CaseDiagnostics {
             if (!onsetValid) {
                 indicator = Math.max(indicator, top.relaxationTimeS() * ONSET_RATE_PER_S);
             }
-            transport.add(new ProductTransport(c.name(), c.product().molarMassKgPerMol(), c.product().kineticDiameterM(),
-                    gas.stericFactor(j), at));
+            Product pr = c.product();
+            boolean own = pr.hasOwnPermeability();
+            transport.add(new ProductTransport(c.name(), pr.molarMassKgPerMol(), pr.kineticDiameterM(),
+                    gas.stericFactor(j), own ? pr.permeabilityPi0() : bake.cap().permeabilityPi0(),
+                    own ? pr.permeationActivationJPerMol() : bake.cap().permeationActivationJPerMol(), own, at));
         }
         GasRegime regime = indicator <= BakeSimulator.QUASI_STEADY_ERROR ? GasRegime.QUASI_STEADY : GasRegime.FULL_GAS;
 
@@ -186,6 +197,7 @@ public final class CaseDiagnostics {
         double k = gas.permeance(j, t);
         double tau = k > 0 ? vGas / (R * t * k) : Double.POSITIVE_INFINITY;
         return new TransportAt(label, t, gas.knudsenDiffusivity(j, t), gas.molecularDiffusivity(j, t),
-                gas.poreDiffusivity(j, t), gas.effectiveDiffusivity(j, t), k, tau);
+                gas.poreDiffusivity(j, t), gas.effectiveDiffusivity(j, t),
+                gas.solidPermeability(j, t) / gas.cap().thicknessM(), k, tau);
     }
 }

@@ -43,7 +43,8 @@ public final class RobustStudy {
 
     /** The risk of one limit over the samples. */
     public record LimitRisk(String limit, boolean headroom, int violations, int n, double probability,
-                            double standardError, double upper95IfNone, double marginMedian, double marginAtAlpha) {
+                            double standardError, double upper95IfNone, double marginMedian, double marginAtAlpha,
+                            double marginToPass) {
     }
 
     /** Rank correlations of one parameter with the smallest slack, the time to target and each limit's slack. */
@@ -63,7 +64,21 @@ public final class RobustStudy {
      * @param sensitivities ranked by |ρ| with the smallest slack, then with the time to target
      */
     public record Summary(int n, double quantile, List<LimitRisk> risks, int anyViolations, double p50S, double p95S,
-                          double pqS, int notReached, List<Sensitivity> sensitivities) {
+                          double pqS, int notReached, List<Sensitivity> sensitivities, double[] timesToTargetS) {
+        /**
+         * Samples that reach the residue target after {@code checkpointS} (the end of the final hold) or never:
+         * exactly those that violate the residue limit.
+         */
+        public int lateSamples(double checkpointS) {
+            int late = 0;
+            for (double t : timesToTargetS) {
+                if (Double.isNaN(t) || t > checkpointS) {
+                    late++;
+                }
+            }
+            return late;
+        }
+
         public double anyProbability() {
             return n == 0 ? Double.NaN : (double) anyViolations / n;
         }
@@ -109,7 +124,7 @@ public final class RobustStudy {
             boolean headroom = limits.get(l).equals("ceiling");
             risks.add(new LimitRisk(limits.get(l), headroom, k, n, n == 0 ? Double.NaN : (double) k / n,
                     SampleStatistics.binomialStandardError(k, n), k == 0 ? SampleStatistics.ruleOfThree(n) : Double.NaN,
-                    SampleStatistics.quantile(m, 0.5), SampleStatistics.quantile(m, alpha)));
+                    SampleStatistics.quantile(m, 0.5), SampleStatistics.quantile(m, alpha), orderStatistic(m, alpha)));
         }
         int any = (int) out.stream().filter(o -> !o.feasible()).count();
         double[] t = out.stream().mapToDouble(MonteCarlo.Outcome::timeToTargetS).toArray();
@@ -130,7 +145,20 @@ public final class RobustStudy {
         sens.sort(Comparator.comparingDouble((Sensitivity s) -> Double.isNaN(s.smallestMargin()) ? -1 : -Math.abs(s.smallestMargin()))
                 .thenComparingDouble(s -> Double.isNaN(s.timeToTarget()) ? 0 : -Math.abs(s.timeToTarget())));
         return new Summary(n, quantile, risks, any, SampleStatistics.quantile(t, 0.5), SampleStatistics.quantile(t, 0.95),
-                SampleStatistics.quantile(t, quantile), notReached, sens);
+                SampleStatistics.quantile(t, quantile), notReached, sens, t.clone());
+    }
+
+    /**
+     * The margin of the sample that must hold for at most a fraction α of the samples to fail: the
+     * (⌊α n⌋ + 1)-th smallest. The interpolated quantile can lie above 1 while the count still fails.
+     */
+    static double orderStatistic(double[] margins, double alpha) {
+        double[] m = java.util.Arrays.stream(margins).filter(v -> !Double.isNaN(v)).sorted().toArray();
+        if (m.length == 0) {
+            return Double.NaN;
+        }
+        int i = (int) Math.floor(alpha * m.length + 1e-12);
+        return m[Math.min(i, m.length - 1)];
     }
 
     // ------------------------------------------------------------------ robust planning
@@ -256,7 +284,13 @@ public final class RobustStudy {
                     }
                 }
                 case "residue" -> {
-                    residue *= m;
+                    // the residue decays with hold time rather than scaling with the recipe, and the samples'
+                    // spread grows with it: tighten by the sample that must pass (not the interpolated quantile)
+                    // (a slower sample's residue falls more slowly than the nominal one's as the hold grows: its
+                    // shortfall is squared, and at least 10 % is taken off, so the rounds do not stall on the
+                    // tool's time step)
+                    double pass = r.marginToPass();
+                    residue *= Math.min(Math.min(m, pass * pass), 0.9);
                     what.add("residue target " + round(residue * 100) + " %");
                 }
                 case "pressure" -> {

@@ -25,6 +25,9 @@ public final class GasTransport {
     /** (ε/τ) S_j. */
     private final double[] geometric;
     private final double[] steric;
+    /** Solution–diffusion Π0_j and E_Π,j/R of each product: its own, or the cap's default. */
+    private final double[] pi0;
+    private final double[] piEOverR;
     /** a in c(Δp) = a/T · g(Δp). */
     private final double viscousPerT;
 
@@ -36,6 +39,8 @@ public final class GasTransport {
         this.molecular = new double[size];
         this.geometric = new double[size];
         this.steric = new double[size];
+        this.pi0 = new double[size];
+        this.piEOverR = new double[size];
         double eOverTau = cap.porosityOverTortuosity();
         for (int j = 0; j < size; j++) {
             Product p = products.get(j);
@@ -46,6 +51,8 @@ public final class GasTransport {
                       / Math.pow(ambient.diffusivityRefTemperatureK(), 1.75);
             steric[j] = cap.porosity() == 0 ? 0 : stericFactor(p.kineticDiameterM(), cap.poreRadiusM());
             geometric[j] = eOverTau * steric[j];
+            pi0[j] = p.hasOwnPermeability() ? p.permeabilityPi0() : cap.permeabilityPi0();
+            piEOverR[j] = (p.hasOwnPermeability() ? p.permeationActivationJPerMol() : cap.permeationActivationJPerMol()) / R;
         }
         viscousPerT = cap.viscousPermeabilityM2() / (ambient.viscosityPaS() * R * cap.thicknessM());
     }
@@ -102,7 +109,7 @@ public final class GasTransport {
         return geometric[j] == 0 ? 0 : geometric[j] * poreDiffusivity(j, temperatureK);
     }
 
-    /** Solution–diffusion permeability Π(T) [mol m⁻¹ s⁻¹ Pa⁻¹]. */
+    /** The cap's own solution–diffusion permeability Π(T), the default for every product [mol m⁻¹ s⁻¹ Pa⁻¹]. */
     public double solidPermeability(double temperatureK) {
         if (cap.permeabilityPi0() == 0) {
             return 0;
@@ -110,10 +117,15 @@ public final class GasTransport {
         return cap.permeabilityPi0() * Math.exp(-cap.permeationActivationJPerMol() / (R * temperatureK));
     }
 
-    /** Diffusive permeance K_j = D_eff/(R T h) + Π/h [mol m⁻² s⁻¹ Pa⁻¹]. */
+    /** Product j's solution–diffusion permeability Π_j(T): its own, else the cap's [mol m⁻¹ s⁻¹ Pa⁻¹]. */
+    public double solidPermeability(int j, double temperatureK) {
+        return pi0[j] == 0 ? 0 : pi0[j] * Math.exp(-piEOverR[j] / temperatureK);
+    }
+
+    /** Diffusive permeance K_j = D_eff,j/(R T h) + Π_j/h [mol m⁻² s⁻¹ Pa⁻¹]. */
     public double permeance(int j, double temperatureK) {
         double h = cap.thicknessM();
-        return effectiveDiffusivity(j, temperatureK) / (R * temperatureK * h) + solidPermeability(temperatureK) / h;
+        return effectiveDiffusivity(j, temperatureK) / (R * temperatureK * h) + solidPermeability(j, temperatureK) / h;
     }
 
     /**

@@ -29,7 +29,10 @@ class KissingerAndIsoconversionalTest {
         // Source: CHECKS.md "synthetic first order" (derived by direct integration), st. D.
         double[] expected = {523.729, 533.877, 547.893, 558.980, 570.510};
         for (int i = 0; i < BETAS.length; i++) {
-            assertEquals(expected[i], curves.get(i).peakTemperatureK(), 2e-3, "Tp at " + BETAS[i] + " K/min");
+            // 0.01 K: the peak is a cubic least-squares fit over the top 10 % of the rate peak (robust to
+            // noise); on this asymmetric first-order peak its bias is ~4 mK (measured), far below what
+            // moves Kissinger's E (see kissingerIsExactForFirstOrder).
+            assertEquals(expected[i], curves.get(i).peakTemperatureK(), 0.01, "Tp at " + BETAS[i] + " K/min");
         }
     }
 

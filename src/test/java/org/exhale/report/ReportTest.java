@@ -71,7 +71,7 @@ class ReportTest {
                         "Excess pressure in the cavity [kPa]", "max pressure 120 kPa"),
                 "cap-mechanics", List.of("edge stress, hot", "deflection, cold", "cracking G, hot", "delamination G, cold",
                         "Stress [MPa]", "Deflection [µm]", "G [J/m²]", "strength 300 MPa"),
-                "margins", List.of("pressure — binding, hot", "strength, hot", "residue (applies at the end), cold",
+                "margins", List.of("pressure — binding, hot", "strength, hot", "residue (applies at the end of the final hold), cold",
                         "ceiling headroom, hot", "Margin, allowed / actual [–, log]", "Ceiling headroom [K]"));
         for (Map.Entry<String, List<String>> e : expected.entrySet()) {
             String svg = Files.readString(bakeDir.resolve("charts").resolve(e.getKey() + ".svg"));

@@ -1,0 +1,414 @@
+package org.exhale.planning;
+
+import java.util.ArrayList;
+import java.util.List;
+
+import org.exhale.recipe.Recipe;
+import org.exhale.recipe.Step;
+import org.exhale.simulation.BakeCase;
+import org.exhale.simulation.BakeStepper;
+import org.exhale.simulation.GasRegime;
+import org.exhale.simulation.SimulationSettings;
+
+/**
+ * The closed-loop rider, the planner's backbone (MODEL.md §9). From the simulated state of every
+ * corner (each with its own conversions, gas under the cap and wafer lag), it takes at each
+ * instant the highest setpoint that keeps every instantaneous limit, no faster than the tool.
+ *
+ * <p><b>Admissible.</b> A segment to a setpoint is admissible when the bake, integrated over it at
+ * every corner with the gas equations the proof will use, keeps every limit with the margin asked,
+ * and when, after it, the bake still has a safe continuation over a look-ahead of three times the
+ * wafer lag plus the gas relaxation time: holding the setpoint, or cooling at the fastest rate.
+ * Without the look-ahead the lag and the stored gas would carry the bake over a limit after the
+ * rider stops climbing.
+ *
+ * <p><b>The ride</b> ({@link #ride}) applies this on a fine control interval with unlimited steps:
+ * its time to the residue target is the benchmark a recipe with few steps is measured against
+ * ({@code ride_s}). <b>The recipe</b> ({@link #build}) places the tool's few steps along the ride:
+ * each segment's end is the highest admissible setpoint on the tool's grid over the segment, from
+ * where the recipe so far really leaves the bake; a segment that can reach the cap snaps to it, as
+ * fast as admissible; the final hold lasts until the target is met at every corner.
+ */
+final class Rider {
+    private final BakeCase bake;
+    private final Tool tool;
+    private final double capK;
+    private final double startK;
+    private final GasRegime regime;
+    private final double gasScale;
+    private final SimulationSettings settings;
+    private final double lagS;
+    private final double residue;
+    /** Whether a continuation that cools at the fastest rate counts as safe (only when no hold is). */
+    private boolean coolAllowed;
+    /** A guess whose margin is within this (log) band above the one asked is taken without search. */
+    private static final double BAND = 5e-4;
+    /** The smallest margin every segment must keep. */
+    private double margin = 1.001;
+    private int trials;
+
+    Rider(BakeCase bake, Tool tool, double capK, GasRegime regime, double gasScale) {
+        this.bake = bake;
+        this.tool = tool;
+        this.capK = capK;
+        this.startK = bake.recipeStartK();
+        this.regime = regime;
+        this.gasScale = gasScale;
+        this.settings = SimulationSettings.defaults().withSampleInterval(0).withStiffTolerance(1e-4);
+        this.lagS = bake.wafer().lagS();
+        this.residue = bake.limits().residue();
+    }
+
+    void setMargin(double m) {
+        this.margin = m;
+    }
+
+    double margin() {
+        return margin;
+    }
+
+    int trials() {
+        return trials;
+    }
+
+    /** A ride: its time to the target (NaN when it never gets there) and its setpoint path. */
+    record Ride(double timeToTargetS, double[] timesS, double[] setpointsK, boolean admissibleThroughout,
+                double reachesCapS) {
+    }
+
+    /** A recipe built along the ride, with its predicted time to target at the end of the final hold. */
+    record Built(Recipe recipe, double holdEndS, boolean admissibleThroughout) {
+    }
+
+    BakeStepper start() {
+        return BakeStepper.start(bake, regime, gasScale, settings);
+    }
+
+    /** The ride with unlimited steps on a control interval of {@code controlS}, until the target or {@code horizonS}. */
+    Ride ride(double controlS, double horizonS) {
+        BakeStepper st = start();
+        List<double[]> path = new ArrayList<>();
+        path.add(new double[]{0, startK});
+        boolean ok = true;
+        double lastIncrement = tool.maxRampUpKPerS() * controlS;
+        double reachesCap = Double.NaN;
+        while (st.timeS() < horizonS) {
+            double sp = st.setpointK();
+            double hi = Math.min(capK, sp + tool.maxRampUpKPerS() * controlS);
+            double lo = Math.max(startK, sp - tool.maxRampDownKPerS() * controlS);
+            double next = highest(st, controlS, lo, hi, sp + lastIncrement, 0.1);
+            if (Double.isNaN(next)) {
+                // no setpoint can hold afterwards: cool as the limits allow
+                coolAllowed = true;
+                next = highest(st, controlS, lo, hi, lo, 0.1);
+                coolAllowed = false;
+                if (Double.isNaN(next)) {
+                    ok = false;
+                    next = lo;
+                }
+            }
+            lastIncrement = next - sp;
+            BakeStepper before = st.copy();
+            st.advance(next, controlS);
+            path.add(new double[]{st.timeS(), next});
+            if (Double.isNaN(reachesCap) && next >= capK - 1e-9) {
+                reachesCap = st.timeS();
+            }
+            if (st.unconverted() <= residue) {
+                double tx = crossing(before, next, controlS);
+                return new Ride(tx, column(path, 0), column(path, 1), ok, reachesCap);
+            }
+        }
+        return new Ride(Double.NaN, column(path, 0), column(path, 1), ok, reachesCap);
+    }
+
+    /**
+     * A recipe along the ride: ramps ending at the ride's times {@code knotTimesS} (after the start),
+     * each to the highest admissible setpoint on the tool's grid, then the final hold and the
+     * cool-down. At most {@code maxRamps} ramps, the last one to the cap when the knots end below it.
+     */
+    Built build(double[] knotTimesS, int maxRamps) {
+        BakeStepper st = start();
+        List<Step> steps = new ArrayList<>();
+        double ts = Math.max(tool.timeStepS(), 1e-3);
+        double minStep = Math.max(tool.minStepS(), ts);
+        boolean ok = true;
+        double prev = 0;
+        int used = 0;
+        for (int i = 0; i < knotTimesS.length && used < maxRamps; i++) {
+            double sp = st.setpointK();
+            if (sp >= capK - 1e-9) {
+                break;
+            }
+            double d = Math.max(Planner.ceilTo(knotTimesS[i] - prev, ts), minStep);
+            prev = knotTimesS[i];
+            boolean lastRamp = used == maxRamps - 1;
+            double hiK = Math.min(capK, Planner.floorSetpoint(sp + tool.maxRampUpKPerS() * d, tool.setpointStepK()));
+            double end;
+            {
+                double loK = Math.max(startK, sp - tool.maxRampDownKPerS() * d);
+                end = highestOnGrid(st, d, loK, hiK);
+                if (Double.isNaN(end)) {
+                    ok = false;
+                    end = Math.max(startK, Planner.ceilTo(loK - org.exhale.PhysicalConstants.ZERO_CELSIUS_K,
+                            Math.max(tool.setpointStepK(), 0)) + org.exhale.PhysicalConstants.ZERO_CELSIUS_K);
+                }
+            }
+            if (end >= capK - 1e-9) {
+                // snap to the cap: the shortest admissible duration of a ramp to it
+                end = capK;
+                double fastest = Math.max(Planner.ceilTo((capK - sp) / tool.maxRampUpKPerS(), ts), minStep);
+                d = shortestTo(st, capK, fastest, lastRamp ? Math.max(d, fastest) * 64 : Math.max(d, fastest), ts);
+                if (Double.isNaN(d)) {
+                    ok = false;
+                    d = Math.max(fastest, Planner.ceilTo(knotTimesS[Math.min(i, knotTimesS.length - 1)], ts));
+                }
+            }
+            steps.add(Math.abs(end - sp) < 1e-9 ? new Step.Hold(d) : new Step.Ramp(end, Math.abs(end - sp) / d));
+            st.advance(end, d);
+            used++;
+        }
+        if (st.setpointK() < capK - 1e-9 && used < maxRamps && holdToTarget(st, ts, minStep) > 3600) {
+            // the knots ended well short of the target: one more ramp to the cap, as fast as admissible
+            double sp = st.setpointK();
+            double fastest = Math.max(Planner.ceilTo((capK - sp) / tool.maxRampUpKPerS(), ts), minStep);
+            double d = shortestTo(st, capK, fastest, fastest * 64, ts);
+            if (Double.isNaN(d)) {
+                ok = false;
+                d = fastest * 64;
+            }
+            steps.add(new Step.Ramp(capK, (capK - sp) / d));
+            st.advance(capK, d);
+        }
+        // the final hold at the last setpoint until every corner meets the target
+        double hold = holdToTarget(st, ts, minStep);
+        if (Double.isNaN(hold)) {
+            return null;
+        }
+        steps.add(new Step.Hold(hold));
+        double holdEnd = st.timeS() + hold;
+        double top = st.setpointK();
+        if (tool.hasUnload() && tool.unloadK() < top) {
+            double dr = Planner.ceilTo(Math.max((top - tool.unloadK()) / tool.maxRampDownKPerS(), tool.minStepS()), ts);
+            steps.add(new Step.Ramp(tool.unloadK(), (top - tool.unloadK()) / dr));
+        }
+        return new Built(new Recipe(startK, steps), holdEnd, ok);
+    }
+
+    /** The hold at the current setpoint that takes every corner to the target, on the tool's time grid; NaN if a day is not enough. */
+    private double holdToTarget(BakeStepper st, double ts, double minStep) {
+        double sp = st.setpointK();
+        double chunk = Math.max(60, minStep);
+        BakeStepper s = st.copy();
+        double elapsed = 0;
+        while (s.unconverted() > residue) {
+            if (elapsed > 24 * 3600) {
+                return Double.NaN;
+            }
+            BakeStepper before = s.copy();
+            s.advance(sp, chunk);
+            if (s.unconverted() <= residue) {
+                double tx = crossing(before, sp, chunk) - st.timeS();
+                return Math.max(Planner.ceilTo(tx, ts), minStep);
+            }
+            elapsed += chunk;
+            chunk = Math.min(chunk * 1.5, 1800);
+        }
+        return minStep;
+    }
+
+    /** When the bake, from {@code before} along a segment to endK over d, first meets the target (bisection, 0.1 s). */
+    private double crossing(BakeStepper before, double endK, double d) {
+        double lo = 0;
+        double hi = d;
+        double rate = (endK - before.setpointK()) / d;
+        while (hi - lo > 0.1) {
+            double mid = 0.5 * (lo + hi);
+            BakeStepper s = before.copy();
+            s.advance(before.setpointK() + rate * mid, mid);
+            if (s.unconverted() <= residue) {
+                hi = mid;
+            } else {
+                lo = mid;
+            }
+        }
+        return before.timeS() + hi;
+    }
+
+    /** The shortest duration in [fastest, slowest] on the time grid of an admissible ramp to endK; NaN if none. */
+    private double shortestTo(BakeStepper st, double endK, double fastest, double slowest, double ts) {
+        if (admissible(st, endK, fastest)) {
+            return fastest;
+        }
+        if (!admissible(st, endK, slowest)) {
+            return Double.NaN;
+        }
+        double lo = fastest;
+        double hi = slowest;
+        while (hi - lo > Math.max(ts, 0.005 * hi)) {
+            double mid = Planner.ceilTo(0.5 * (lo + hi), ts);
+            if (mid >= hi) {
+                break;
+            }
+            if (admissible(st, endK, mid)) {
+                hi = mid;
+            } else {
+                lo = mid;
+            }
+        }
+        return hi;
+    }
+
+    /** The highest admissible end setpoint on the tool's setpoint grid in [lo, hi]; NaN if none. */
+    private double highestOnGrid(BakeStepper st, double d, double lo, double hi) {
+        double step = tool.setpointStepK();
+        if (step <= 0) {
+            return highest(st, d, lo, hi, hi, 0.01);
+        }
+        double c0 = org.exhale.PhysicalConstants.ZERO_CELSIUS_K;
+        long a = (long) Math.ceil((lo - c0) / step - 1e-9);
+        long b = (long) Math.floor((hi - c0) / step + 1e-9);
+        if (b < a) {
+            return Double.NaN;
+        }
+        if (admissible(st, c0 + b * step, d)) {
+            return c0 + b * step;
+        }
+        if (!admissible(st, c0 + a * step, d)) {
+            return Double.NaN;
+        }
+        while (b - a > 1) {
+            long m = (a + b) / 2;
+            if (admissible(st, c0 + m * step, d)) {
+                a = m;
+            } else {
+                b = m;
+            }
+        }
+        return c0 + a * step;
+    }
+
+    /**
+     * The highest admissible end setpoint in [lo, hi] to within tol; NaN if none. The search works on
+     * the margin itself, f(T) = ln(score(T)/margin), which is smooth in T: it starts from
+     * {@code guess} (where last interval's boundary was), accepts it outright when its margin is
+     * within 0.3 % above the one asked, and otherwise brackets the boundary and closes in by
+     * regula falsi (Illinois), so a smoothly moving boundary costs one or two trials.
+     */
+    private double highest(BakeStepper st, double d, double lo, double hi, double guess, double tol) {
+        double g = Math.min(Math.max(guess, lo), hi);
+        double fg = f(st, g, d);
+        if (fg >= 0 && (fg <= BAND || g >= hi)) {
+            return g;
+        }
+        double a;
+        double fa;
+        double b;
+        double fb;
+        if (fg >= 0) {
+            a = g;
+            fa = fg;
+            double fh = f(st, hi, d);
+            if (fh >= 0) {
+                return hi;
+            }
+            b = hi;
+            fb = fh;
+        } else {
+            b = g;
+            fb = fg;
+            double w = Math.max(tol, 0.02 * (hi - lo));
+            while (true) {
+                double down = Math.max(lo, b - w);
+                double fd = f(st, down, d);
+                if (fd >= 0) {
+                    a = down;
+                    fa = fd;
+                    break;
+                }
+                b = down;
+                fb = fd;
+                if (down <= lo) {
+                    return Double.NaN;
+                }
+                w *= 4;
+            }
+        }
+        int side = 0;
+        while (b - a > tol) {
+            double m;
+            if (Double.isFinite(fa) && Double.isFinite(fb) && fa != fb) {
+                m = a + fa * (b - a) / (fa - fb);
+                m = Math.min(Math.max(m, a + 0.25 * tol), b - 0.25 * tol);
+            } else {
+                m = 0.5 * (a + b);
+            }
+            double fm = f(st, m, d);
+            if (fm >= 0) {
+                if (fm <= BAND) {
+                    return m;
+                }
+                a = m;
+                fa = fm;
+                if (side == 1) {
+                    fb *= 0.5;
+                }
+                side = 1;
+            } else {
+                b = m;
+                fb = fm;
+                if (side == -1) {
+                    fa *= 0.5;
+                }
+                side = -1;
+            }
+        }
+        return a;
+    }
+
+    /** ln(score/margin): non-negative exactly when the segment is admissible. */
+    private double f(BakeStepper st, double endK, double d) {
+        double sc = score(st, endK, d);
+        return sc == Double.POSITIVE_INFINITY ? Double.POSITIVE_INFINITY : sc <= 0 ? -50 : Math.log(sc / margin);
+    }
+
+    /** Whether a segment to endK over d keeps every limit and leaves a safe continuation (see the class comment). */
+    boolean admissible(BakeStepper st, double endK, double d) {
+        return score(st, endK, d) >= margin;
+    }
+
+    /**
+     * The smallest margin over a segment to endK over d and its best safe continuation (holding; or,
+     * when {@link #coolAllowed}, cooling at the fastest rate): admissible when at least the margin asked.
+     */
+    double score(BakeStepper st, double endK, double d) {
+        trials++;
+        BakeStepper s = st.copy();
+        double m = s.advance(endK, d);
+        if (m < margin) {
+            return m;
+        }
+        double look = 3 * (lagS + s.relaxationTimeS());
+        if (look < 1e-3 * d || !Double.isFinite(look)) {
+            return m;
+        }
+        look = Math.min(look, 4 * 3600);
+        BakeStepper hold = s.copy();
+        double mh = Math.min(m, hold.advance(endK, look));
+        if (mh >= margin || !coolAllowed) {
+            return mh;
+        }
+        BakeStepper cool = s.copy();
+        double down = Math.max(Math.min(startK, endK), endK - tool.maxRampDownKPerS() * look);
+        trials++;
+        return Math.max(mh, Math.min(m, cool.advance(down, look)));
+    }
+
+    private static double[] column(List<double[]> rows, int c) {
+        double[] out = new double[rows.size()];
+        for (int i = 0; i < out.length; i++) {
+            out[i] = rows.get(i)[c];
+        }
+        return out;
+    }
+}
