@@ -163,4 +163,14 @@ class HardeningTest {
         oneLine(CliErrorsTest.run("fit", a.toString(), b.toString(), negative.toString(), "-o", tmp.resolve("f3").toString()),
                 Main.BAD_INPUT, "negative");
     }
+
+    @Test
+    void fitOnTwoHeatingRatesPrintsNoNaN() {
+        // formerly: "± NaN" for every isoconversional interval (two rates leave no degrees of freedom)
+        Path d = Path.of("data/demo/tga");
+        CliErrorsTest.Run r = CliErrorsTest.run("fit", d.resolve("demo_02Kmin.csv").toString(), d.resolve("demo_05Kmin.csv").toString(),
+                "-o", tmp.resolve("fit").toString());
+        assertEquals(Main.OK, r.code(), r.err());
+        assertFalse(r.out().contains("NaN"), r.out());
+    }
 }
