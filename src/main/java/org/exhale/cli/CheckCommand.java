@@ -81,7 +81,7 @@ final class CheckCommand implements Callable<Integer> {
         try {
             bytes = Files.readAllBytes(casePath);
         } catch (IOException e) {
-            throw new InputException(ErrorKind.FILE_UNREADABLE, casePath.toString(), "", 0, "cannot read: " + e.getMessage());
+            throw new InputException(ErrorKind.FILE_UNREADABLE, casePath.toString(), "", 0, "cannot read: " + org.exhale.io.Messages.of(e));
         }
         List<CaseEcho.Entry> entries = CaseEcho.entries(bytes);
         out.println();

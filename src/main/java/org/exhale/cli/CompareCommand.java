@@ -95,7 +95,7 @@ final class CompareCommand implements Callable<Integer> {
             runs.cancel();
             runs.awaitWorkers(5000);
         }, () -> {
-            write(dir, cf, variations, runs.snapshot(), combos.size(), false, (System.nanoTime() - t0) / 1e9, nThreads);
+            write(dir, cf, variations, runs.snapshot(), combos.size(), false, (System.nanoTime() - t0) / 1e9, nThreads, common.force);
             System.err.println("Interrupted: kept " + runs.done() + " of " + combos.size() + " options in " + dir
                     + " (\"complete\": false)");
         })) {
@@ -106,12 +106,13 @@ final class CompareCommand implements Callable<Integer> {
             if (!runs.complete() || !save.claim()) {
                 return Main.INTERNAL; // stopped: the hook keeps what is done
             }
-            s = write(dir, cf, variations, done, combos.size(), true, (System.nanoTime() - t0) / 1e9, nThreads);
+            s = write(dir, cf, variations, done, combos.size(), true, (System.nanoTime() - t0) / 1e9, nThreads, common.force);
         }
         if (!common.quiet) {
             System.out.print(s.text);
             cf.warnings().forEach(w -> System.out.println("Warning: " + w));
-            System.out.println("Wrote " + dir + " (options.csv, compare.json, recipes/)");
+            System.out.println("Wrote " + dir + " (options.csv, compare.json, recipes/)"
+                    + String.format(java.util.Locale.ROOT, " after %.1f s", (System.nanoTime() - t0) / 1e9));
             Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
         }
         return s.anyFeasible ? Main.OK : Main.INFEASIBLE;
@@ -134,11 +135,11 @@ final class CompareCommand implements Callable<Integer> {
 
     /** Builds and writes the outputs from the options done so far (null entries are not done). */
     static Summary write(Path dir, CaseFile cf, List<Variation> vary, List<Compare.Option> all, int total,
-                         boolean complete, double seconds, int threads) {
+                         boolean complete, double seconds, int threads, boolean force) {
         List<Compare.Option> done = all.stream().filter(o -> o != null).toList();
         List<Compare.Option> ranked = Compare.rank(done);
         boolean[] pareto = Compare.pareto(ranked);
-        OutputFolder out = new OutputFolder(dir, true).owns("recipes", "report.html", "charts");
+        OutputFolder out = new OutputFolder(dir, force).owns("recipes", "report.html", "charts");
         out.put("options.csv", OptionsCsvWriter.write(vary, ranked, pareto));
         for (Compare.Option o : done) {
             if (o.feasible()) {
@@ -153,7 +154,7 @@ final class CompareCommand implements Callable<Integer> {
         m.put("options_total", total);
         m.put("options_done", done.size());
         m.put("threads", threads);
-        m.put("wall_time_s", seconds);
+        // the wall time goes to the terminal only: identical input gives identical bytes (docs/errors.md)
         List<Object> keys = new ArrayList<>();
         for (Variation v : vary) {
             Map<String, Object> k = new LinkedHashMap<>();

@@ -176,9 +176,33 @@ public final class FitCommand implements Callable<Integer> {
         List<TgaRun> runs = new ArrayList<>();
         List<String> notes = new ArrayList<>();
         Map<String, Map<String, String>> metadata = new LinkedHashMap<>();
+        java.util.Map<Path, Path> seenFiles = new java.util.HashMap<>();
         for (Path f : runFiles) {
+            Path key = f.toAbsolutePath().normalize();
+            try {
+                key = f.toRealPath();
+            } catch (java.io.IOException e) {
+                // the reader says why the file cannot be read
+            }
+            if (seenFiles.putIfAbsent(key, f) != null) {
+                throw new InputException(ErrorKind.BAD_ARGUMENT, f.toString(), "", 0,
+                        "the same run file is given twice (as " + seenFiles.get(key) + " too); each run counts once");
+            }
             TgaCsvReader.Result r = reader.read(f);
-            runs.addAll(r.runs());
+            for (TgaRun run : r.runs()) {
+                if (java.util.Arrays.stream(run.mass()).allMatch(m -> m <= 0)) {
+                    throw new InputException(ErrorKind.OUT_OF_RANGE, f.toString(), "run " + run.label(), 0,
+                            "every mass is zero or negative; expected the sample's mass (tare the balance before the run)");
+                }
+                for (TgaRun other : runs) {
+                    if (java.util.Arrays.equals(other.timeS(), run.timeS()) && java.util.Arrays.equals(other.temperatureK(), run.temperatureK())
+                            && java.util.Arrays.equals(other.mass(), run.mass())) {
+                        throw new InputException(ErrorKind.INCONSISTENT, f.toString(), "run " + run.label(), 0,
+                                "holds the same data as run " + other.label() + "; each run counts once");
+                    }
+                }
+                runs.add(run);
+            }
             notes.addAll(r.notes());
             metadata.putAll(r.metadata());
         }
@@ -309,14 +333,14 @@ public final class FitCommand implements Callable<Integer> {
             for (double a : new double[] {0.1, 0.3, 0.5, 0.7, 0.9}) {
                 out.printf(Locale.ROOT, "  %5.2f ", a);
                 for (IsoconversionalResult r : report.isoconversional()) {
-                    out.printf(Locale.ROOT, " %8.1f ± %-7.1f", r.energyAt(a) / 1e3, r.halfWidthAt(a) / 1e3);
+                    out.printf(Locale.ROOT, " %8.1f ± %-7s", r.energyAt(a) / 1e3, orNa(r.halfWidthAt(a) / 1e3, "%.1f"));
                 }
                 out.println();
             }
         }
         if (report.kissinger() != null) {
-            out.printf(Locale.ROOT, "Kissinger: Ea %.1f ± %.1f kJ/mol, A %.3e 1/s%s%n", report.kissinger().energyJPerMol() / 1e3,
-                    report.kissinger().energyHalfWidthJPerMol() / 1e3, report.kissinger().preExponentialPerS(),
+            out.printf(Locale.ROOT, "Kissinger: Ea %.1f ± %s kJ/mol, A %.3e 1/s%s%n", report.kissinger().energyJPerMol() / 1e3,
+                    orNa(report.kissinger().energyHalfWidthJPerMol() / 1e3, "%.1f"), report.kissinger().preExponentialPerS(),
                     report.kissinger().flagged() ? String.format(Locale.ROOT, "   FLAGGED: E(alpha) varies by %.0f %%, not one step",
                             100 * report.kissinger().energySpread()) : "");
         }
@@ -348,6 +372,11 @@ public final class FitCommand implements Callable<Integer> {
                     c.model().id(), shape(c));
         }
         out.println("  intervals: " + report.intervalMethod());
+    }
+
+    /** A half-width, or "n/a" where too few runs leave no degrees of freedom to compute it (never "NaN"). */
+    private static String orNa(double hw, String fmt) {
+        return Double.isFinite(hw) ? String.format(Locale.ROOT, fmt, hw) : "n/a";
     }
 
     private static String pm(double hw, double scale, String fmt) {

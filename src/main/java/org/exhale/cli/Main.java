@@ -48,7 +48,14 @@ public final class Main implements Runnable {
 
     /** Runs the command line and returns the exit code (no System.exit; used by tests). */
     public static int execute(String... args) {
-        return commandLine().execute(args);
+        try {
+            return commandLine().execute(args);
+        } catch (OutOfMemoryError e) {
+            // memory is bounded by design (docs/errors.md); should a machine still be too small, say so in one line
+            System.err.println("error: out of memory: the run needs more than the " + (Runtime.getRuntime().maxMemory() >> 20)
+                    + " MiB the Java heap may use; give Java more (java -Xmx2g -jar exhale.jar ...)");
+            return INTERNAL;
+        }
     }
 
     public static CommandLine commandLine() {

@@ -60,7 +60,7 @@ final class NewCommand implements Callable<Integer> {
         if (Files.isDirectory(target)) {
             throw new InputException(ErrorKind.OUTPUT, target.toString(), "", 0, "is a folder; -o takes a file name");
         }
-        AtomicFiles.writeString(target, text);
+        AtomicFiles.write(target, text.getBytes(java.nio.charset.StandardCharsets.UTF_8), force);
         err.println("wrote " + target + " (" + kind + (dense ? ", dense cap" : ", porous cap")
                 + ", an invented demo scenario); next: exhale check " + target);
         return Main.OK;

@@ -133,7 +133,7 @@ final class PlanCommand implements Callable<Integer> {
             m.put("infeasible", d);
         }
         m.put("simulations", p.evaluations());
-        m.put("planning_time_s", seconds);
+        // the planning time is printed on the terminal only: identical input gives identical bytes (docs/errors.md)
         m.put("notes", p.notes());
         m.put("cautions", Cautions.BAKE);
         return m;

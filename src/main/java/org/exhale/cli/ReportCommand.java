@@ -32,20 +32,20 @@ final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        render(dir, output != null ? output : dir.resolve("report.html"), common.quiet);
+        render(dir, output != null ? output : dir.resolve("report.html"), common.quiet, common.force);
         return Main.OK;
     }
 
     /** Renders the report of an output folder into DIR/report.html and DIR/charts/. */
     static void render(Path dir, boolean quiet) {
-        render(dir, dir.resolve("report.html"), quiet);
+        render(dir, dir.resolve("report.html"), quiet, true);
     }
 
-    private static void render(Path dir, Path page, boolean quiet) {
+    private static void render(Path dir, Path page, boolean quiet, boolean replacePage) {
         long t0 = System.nanoTime();
         RunFolder folder = RunFolder.read(dir);
         Report r = Report.of(folder, Report.chartsHref(dir, page));
-        List<Path> written = r.write(dir, page);
+        List<Path> written = r.write(dir, page, replacePage);
         if (!quiet) {
             System.out.printf(java.util.Locale.ROOT, "wrote %s and %d chart files in %s (%.2f s)%n", page,
                     written.size() - 1, dir.resolve(Report.CHARTS), (System.nanoTime() - t0) / 1e9);

@@ -169,7 +169,8 @@ final class RobustCommand implements Callable<Integer> {
         if (!common.quiet) {
             System.out.print(result);
             cf.warnings().forEach(w -> System.out.println("Warning: " + w));
-            System.out.println("Wrote " + dir + " (samples.csv, robust.json, recipe.yaml, recipe.csv)");
+            System.out.println("Wrote " + dir + " (samples.csv, robust.json, recipe.yaml, recipe.csv)"
+                    + String.format(java.util.Locale.ROOT, " after %.1f s", (System.nanoTime() - t0) / 1e9));
             Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
         }
         return code;
@@ -192,7 +193,7 @@ final class RobustCommand implements Callable<Integer> {
                          int nThreads, List<MonteCarlo.Outcome> out, Recipe recipe, RobustStudy.RobustPlan rp,
                          boolean complete, double seconds) {
         RobustStudy.Summary sum = RobustStudy.summarize(ps, limits, out, quantile);
-        OutputFolder folder = new OutputFolder(dir, true).owns("recipe.csv", "recipe.yaml", "report.html", "charts");
+        OutputFolder folder = new OutputFolder(dir, common.force).owns("recipe.csv", "recipe.yaml", "report.html", "charts");
         folder.put("samples.csv", SamplesCsvWriter.write(ps, limits, out));
         folder.put("recipe.yaml", RecipeCsvWriter.yaml(recipe));
         folder.put("recipe.csv", RecipeCsvWriter.csv(recipe));
@@ -204,7 +205,7 @@ final class RobustCommand implements Callable<Integer> {
         m.put("samples", samples);
         m.put("samples_done", sum.n());
         m.put("threads", nThreads);
-        m.put("wall_time_s", seconds);
+        // the wall time goes to the terminal only: identical input gives identical bytes (docs/errors.md)
         m.put("quantile", quantile);
         m.put("recipe", recipePath != null ? recipePath.toString() : plan ? "robust plan (recipe.yaml)" : "the case's recipe");
         List<Object> params = new ArrayList<>();

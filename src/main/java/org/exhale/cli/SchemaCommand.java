@@ -4,7 +4,6 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
 import org.exhale.io.CaseSchema;
-import org.exhale.io.OutputFolder;
 
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -28,14 +27,11 @@ final class SchemaCommand implements Callable<Integer> {
         if (output == null) {
             System.out.print(json);
         } else {
-            Path dir = output.toAbsolutePath().getParent();
-            OutputFolder out = new OutputFolder(dir, true);
             if (java.nio.file.Files.exists(output) && !common.force) {
                 throw new org.exhale.io.InputException(org.exhale.io.ErrorKind.OUTPUT, output.toString(), "", 0,
                         "exists; use --force to overwrite");
             }
-            out.put(output.getFileName().toString(), json);
-            out.commit();
+            org.exhale.io.AtomicFiles.write(output, json.getBytes(java.nio.charset.StandardCharsets.UTF_8), common.force);
         }
         return Main.OK;
     }

@@ -38,7 +38,8 @@ final class SimulateCommand implements Callable<Integer> {
     Path output;
 
     @Option(names = "--sample", paramLabel = "TIME", defaultValue = "30 s",
-            description = "History sample interval, e.g. '10 s', '1 min' (default: ${DEFAULT-VALUE}).")
+            description = "History sample interval, e.g. '10 s', '1 min', at least 0.1 s; widened to keep at most "
+                    + "20000 rows per corner (default: ${DEFAULT-VALUE}).")
     String sample;
 
     @Option(names = "--report", description = "Also write DIR/report.html and DIR/charts/ (as 'exhale report DIR').")
@@ -50,6 +51,10 @@ final class SimulateCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         double interval = parseTime(sample, "--sample");
+        if (interval < SimulationSettings.MIN_SAMPLE_INTERVAL_S) {
+            throw new InputException(ErrorKind.BAD_ARGUMENT, "command line", "--sample", 0, "'" + sample
+                    + "' is finer than the finest history interval, " + SimulationSettings.MIN_SAMPLE_INTERVAL_S + " s");
+        }
         CaseFile cf = CaseYamlReader.read(casePath);
         if (cf.bake().recipe() == null) {
             throw new InputException(ErrorKind.MISSING_KEY, casePath.toString(), "recipe", 0,
@@ -57,8 +62,15 @@ final class SimulateCommand implements Callable<Integer> {
         }
         OutputFolder out = new OutputFolder(output != null ? output : defaultOutput(casePath), common.force).owns("history.csv", "summary.json", "report.html", "charts");
         out.checkWritable();
-        BakeResult r = BakeSimulator.simulate(cf.bake(), SimulationSettings.defaults().withSampleInterval(interval));
+        SimulationSettings settings = SimulationSettings.defaults().withSampleInterval(interval);
+        BakeResult r = BakeSimulator.simulate(cf.bake(), settings);
         List<String> warnings = new ArrayList<>(cf.warnings());
+        double used = settings.historyIntervalS(cf.bake().recipe().durationS());
+        if (used > interval) {
+            warnings.add(String.format(java.util.Locale.ROOT, "history sampled every %.4g s instead of %s, to keep at most %d rows "
+                    + "per corner; peaks, residue crossings and step ends are resolved all the same", used, sample.strip(),
+                    SimulationSettings.MAX_HISTORY_ROWS));
+        }
         out.put("history.csv", HistoryCsvWriter.write(r));
         out.put("summary.json", SummaryJsonWriter.toJson(SummaryJsonWriter.summary(r, warnings)));
         out.commit();

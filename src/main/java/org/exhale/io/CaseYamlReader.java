@@ -83,7 +83,7 @@ public final class CaseYamlReader {
             }
             return Files.readAllBytes(path);
         } catch (IOException e) {
-            throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "cannot read: " + e.getMessage());
+            throw new InputException(ErrorKind.FILE_UNREADABLE, name, "", 0, "cannot read: " + Messages.of(e));
         }
     }
 
@@ -308,8 +308,8 @@ public final class CaseYamlReader {
         double ePi = Double.NaN;
         if (pr.has("permeability")) {
             YamlNode p = pr.section("permeability");
-            pi0 = p.requiredQuantity("Pi0", UnitKind.PERMEABILITY, 0, 1, "a permeability in [0, 1) mol/(m s Pa)");
-            ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000) kJ/mol");
+            pi0 = p.requiredQuantity("Pi0", UnitKind.PERMEABILITY, 0, Math.nextDown(1.0), "a permeability in [0, 1) mol/(m s Pa)");
+            ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000] kJ/mol");
             p.finish();
         }
         pr.finish();
@@ -389,7 +389,7 @@ public final class CaseYamlReader {
         if (c.has("permeability")) {
             YamlNode p = c.section("permeability");
             pi0 = p.quantity("Pi0", UnitKind.PERMEABILITY, 0, 0, Math.nextDown(1.0), "a permeability in [0, 1) mol/(m s Pa)");
-            ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000) kJ/mol");
+            ePi = p.quantity("Ea", UnitKind.MOLAR_ENERGY, 0, 0, 1e6, "an activation energy in [0, 1000] kJ/mol");
             p.finish();
         }
         double fpi0 = pi0;

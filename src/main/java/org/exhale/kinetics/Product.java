@@ -26,8 +26,8 @@ public record Product(double molarMassKgPerMol, double kineticDiameterM, double 
         if (!Double.isNaN(permeabilityPi0) && !(permeabilityPi0 >= 0 && permeabilityPi0 < 1)) {
             throw new IllegalArgumentException("product permeability Pi0 must be in [0, 1) mol/(m s Pa), got " + permeabilityPi0);
         }
-        if (!Double.isNaN(permeationActivationJPerMol) && !(permeationActivationJPerMol >= 0 && permeationActivationJPerMol < 1e6)) {
-            throw new IllegalArgumentException("product permeation activation energy must be in [0, 1000) kJ/mol, got "
+        if (!Double.isNaN(permeationActivationJPerMol) && !(permeationActivationJPerMol >= 0 && permeationActivationJPerMol <= 1e6)) {
+            throw new IllegalArgumentException("product permeation activation energy must be in [0, 1000] kJ/mol, got "
                     + permeationActivationJPerMol / 1e3 + " kJ/mol");
         }
         if (!(molarMassKgPerMol > 1e-3 && molarMassKgPerMol < 100)) {

@@ -49,7 +49,7 @@ public final class CsvTable {
             text = Files.readString(path, StandardCharsets.UTF_8);
         } catch (IOException e) {
             throw new InputException(ErrorKind.FILE_UNREADABLE, path.toString(), "", 0,
-                    "cannot read (" + e.getMessage() + ")", e);
+                    "cannot read (" + org.exhale.io.Messages.of(e) + ")", e);
         }
         return parse(path.toString(), text);
     }

@@ -70,6 +70,20 @@ public record Report(String html, List<Figure> figures, Map<String, String> svg,
      * temporary file and a move, so no reader sees half a file. Returns the files written.
      */
     public List<Path> write(Path dir, Path page) {
+        return write(dir, page, true);
+    }
+
+    /**
+     * As {@link #write(Path, Path)}; without {@code replacePage} an existing page other than
+     * DIR/report.html is refused. A page outside DIR is written aside first, so that when it cannot be
+     * written no chart is left behind.
+     */
+    public List<Path> write(Path dir, Path page, boolean replacePage) {
+        boolean ownPage = page.toAbsolutePath().normalize().equals(dir.toAbsolutePath().normalize().resolve("report.html"));
+        if (!replacePage && !ownPage && java.nio.file.Files.exists(page, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            throw new org.exhale.io.InputException(org.exhale.io.ErrorKind.OUTPUT, page.toString(), "", 0,
+                    "exists; use --force to replace it, or choose another file with -o");
+        }
         OutputFolder out = new OutputFolder(dir, true);
         List<Path> written = new ArrayList<>();
         for (Figure f : figures) {
@@ -80,12 +94,22 @@ public record Report(String html, List<Figure> figures, Map<String, String> svg,
         }
         Path inside = dir.toAbsolutePath().normalize().relativize(page.toAbsolutePath().normalize());
         boolean inDir = !inside.startsWith("..") && inside.getNameCount() == 1;
+        AtomicFiles.Staged staged = null;
         if (inDir) {
             out.put(inside.toString(), html);
+        } else {
+            staged = AtomicFiles.stage(page, html.getBytes(java.nio.charset.StandardCharsets.UTF_8));
         }
-        out.commit();
-        if (!inDir) {
-            AtomicFiles.writeString(page, html);
+        try {
+            out.commit();
+        } catch (RuntimeException e) {
+            if (staged != null) {
+                staged.discard();
+            }
+            throw e;
+        }
+        if (staged != null) {
+            staged.commit(replacePage || ownPage);
         }
         written.add(page);
         return written;

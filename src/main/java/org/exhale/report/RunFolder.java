@@ -84,7 +84,7 @@ public record RunFolder(Path dir, Optional<JsonNode> summary, Optional<CsvTable>
             throw new InputException(ErrorKind.SYNTAX, p.toString(), "", loc == null ? 0 : loc.getLineNr(),
                     "not valid JSON (" + e.getOriginalMessage() + ")", e);
         } catch (IOException e) {
-            throw new InputException(ErrorKind.FILE_UNREADABLE, p.toString(), "", 0, "cannot read (" + e.getMessage() + ")", e);
+            throw new InputException(ErrorKind.FILE_UNREADABLE, p.toString(), "", 0, "cannot read (" + org.exhale.io.Messages.of(e) + ")", e);
         }
     }
 
@@ -104,7 +104,7 @@ public record RunFolder(Path dir, Optional<JsonNode> summary, Optional<CsvTable>
             }
             return Optional.of(Files.readString(p, StandardCharsets.UTF_8));
         } catch (IOException e) {
-            throw new InputException(ErrorKind.FILE_UNREADABLE, p.toString(), "", 0, "cannot read (" + e.getMessage() + ")", e);
+            throw new InputException(ErrorKind.FILE_UNREADABLE, p.toString(), "", 0, "cannot read (" + org.exhale.io.Messages.of(e) + ")", e);
         }
     }
 

@@ -60,6 +60,8 @@ final class CornerRun {
     private long evaluations;
 
     private final double gasScale;
+    /** Spacing of the history rows [s]: the requested interval, widened to keep at most MAX_HISTORY_ROWS rows. */
+    private final double historyInterval;
 
     /**
      * @param gasScale expected peak of the normalised moles under the cap (from a quasi-steady
@@ -80,6 +82,7 @@ final class CornerRun {
         this.gasScale = Double.isFinite(gasScale) && gasScale > 0 ? Math.min(gasScale, 1) : 1;
         this.model = new BakeModel(bake, offsetK, regime);
         this.recipe = bake.recipe();
+        this.historyInterval = settings.historyIntervalS(recipe.durationS());
         this.settings = settings;
         this.residueTarget = bake.limits().residue();
         this.checkpointStep = recipe.residueCheckpoint().stepIndex();
@@ -168,7 +171,7 @@ final class CornerRun {
             if (seg.stepIndex() == checkpointStep) {
                 unconvertedAtCheckpoint = last[model.oUnconverted];
             }
-            if (settings.sampleIntervalS() > 0 && (history.isEmpty() || history.get(history.size() - 1)[0] < last[0])) {
+            if (historyInterval > 0 && (history.isEmpty() || history.get(history.size() - 1)[0] < last[0])) {
                 history.add(last.clone());
             }
         }
@@ -230,9 +233,9 @@ final class CornerRun {
             maxTime[i] = obs[0];
             maxRow[i] = obs.clone();
         }
-        if (settings.sampleIntervalS() > 0) {
+        if (historyInterval > 0) {
             history.add(obs.clone());
-            nextSample = obs[0] + settings.sampleIntervalS();
+            nextSample = obs[0] + historyInterval;
         }
         checkCrossings(obs, obs, null);
         peakFlux = obs[model.oFlux];
@@ -256,13 +259,13 @@ final class CornerRun {
         // (independent of the states, so that the mass balance below is a check, not an identity)
         ventIntegral += quadrature(model.oFlux, t1 - t0);
         // history on the fixed grid
-        if (settings.sampleIntervalS() > 0) {
+        if (historyInterval > 0) {
             while (nextSample <= t1) {
                 double[] row = new double[model.observableCount];
                 step.state(nextSample, scratchState);
                 model.observe(nextSample, scratchState, row);
                 history.add(row);
-                nextSample += settings.sampleIntervalS();
+                nextSample += historyInterval;
             }
         }
         // maxima, refined inside the step

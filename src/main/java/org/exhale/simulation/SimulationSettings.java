@@ -27,6 +27,29 @@ public record SimulationSettings(double sampleIntervalS, double relativeToleranc
         }
     }
 
+    /**
+     * Most history rows kept per corner: with some 45 columns a row takes about 0.4 KiB in memory and
+     * 0.7 KB in history.csv, so a corner's history stays under about 8 MiB in memory and 15 MB on disk
+     * whatever the recipe's length or the requested interval (docs/errors.md, resource bounds).
+     */
+    public static final int MAX_HISTORY_ROWS = 20_000;
+
+    /** Finest history interval the command line accepts [s]. */
+    public static final double MIN_SAMPLE_INTERVAL_S = 0.1;
+
+    /**
+     * The history interval used for a recipe of the given length: the requested one, widened where
+     * it would give more than {@link #MAX_HISTORY_ROWS} rows (0 stays 0: no history). Peaks, residue
+     * crossings and segment ends are found from the integrator's dense output, not from these rows,
+     * so they are resolved at any interval.
+     */
+    public double historyIntervalS(double durationS) {
+        if (sampleIntervalS == 0) {
+            return 0;
+        }
+        return Math.max(sampleIntervalS, durationS / MAX_HISTORY_ROWS);
+    }
+
     public static SimulationSettings defaults() {
         return new SimulationSettings(30, 1e-8, 1e-6, null, false);
     }

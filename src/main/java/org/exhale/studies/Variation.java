@@ -88,11 +88,13 @@ public record Variation(StudyKey key, List<Double> values) {
         }
         // Inclusive end: a last value within a millionth of a step of TO is TO (0.2:0.5:0.05 has 7 values).
         double count = (to - from) / step;
-        long n = (long) Math.floor(count + 1e-6) + 1;
-        if (n > MAX_VALUES) {
+        if (!(count < MAX_VALUES)) {
+            // checked before the count is made a whole number: 0.4/1e-300 overflows a long
             throw new InputException(ErrorKind.OUT_OF_RANGE, "command line", WHERE, 0, key.key() + ": range '" + p + "' has "
-                    + n + " values, more than " + MAX_VALUES);
+                    + (Double.isFinite(count) ? String.format(java.util.Locale.ROOT, "%.3g", Math.floor(count) + 1) : "too many")
+                    + " values, more than " + MAX_VALUES);
         }
+        long n = (long) Math.floor(count + 1e-6) + 1;
         List<Double> out = new ArrayList<>();
         for (long i = 0; i < n; i++) {
             double v = from + i * step;
