@@ -126,8 +126,11 @@ final class Rider {
      * A recipe along the ride: ramps ending at the ride's times {@code knotTimesS} (after the start),
      * each to the highest admissible setpoint on the tool's grid, then the final hold and the
      * cool-down. At most {@code maxRamps} ramps, the last one to the cap when the knots end below it.
+     * With {@code shorten}, a ramp whose end the setpoint grid rounded down is made as short as is
+     * still admissible; that gains time, but can leave the bake nearer a limit that tightens under a
+     * hold (autocatalytic kinetics), so the planner builds both ways.
      */
-    Built build(double[] knotTimesS, int maxRamps) {
+    Built build(double[] knotTimesS, int maxRamps, boolean shorten) {
         BakeStepper st = start();
         List<Step> steps = new ArrayList<>();
         double ts = Math.max(tool.timeStepS(), 1e-3);
@@ -152,6 +155,14 @@ final class Rider {
                     ok = false;
                     end = Math.max(startK, Planner.ceilTo(loK - org.exhale.PhysicalConstants.ZERO_CELSIUS_K,
                             Math.max(tool.setpointStepK(), 0)) + org.exhale.PhysicalConstants.ZERO_CELSIUS_K);
+                } else if (end > sp && end < capK - 1e-9 && shorten) {
+                    // the grid rounded the end down: get there sooner, as fast as is admissible
+                    double fastest = Math.max(Planner.ceilTo((end - sp) / tool.maxRampUpKPerS(), ts), minStep);
+                    double shorter = shortestTo(st, end, Math.min(fastest, d), d, ts);
+                    if (!Double.isNaN(shorter)) {
+                        prev -= d - shorter;
+                        d = shorter;
+                    }
                 }
             }
             if (end >= capK - 1e-9) {
@@ -168,6 +179,11 @@ final class Rider {
             st.advance(end, d);
             used++;
         }
+        return finish(st, steps, used, maxRamps, ts, minStep, ok);
+    }
+
+    /** One more ramp to the cap when the target is far, then the final hold and the cool-down. */
+    private Built finish(BakeStepper st, List<Step> steps, int used, int maxRamps, double ts, double minStep, boolean ok) {
         if (st.setpointK() < capK - 1e-9 && used < maxRamps && holdToTarget(st, ts, minStep) > 3600) {
             // the knots ended well short of the target: one more ramp to the cap, as fast as admissible
             double sp = st.setpointK();
