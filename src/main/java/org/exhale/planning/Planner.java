@@ -277,7 +277,7 @@ public final class Planner {
         double[] bestKnots = knotTimes(ride, ramps);
         boolean shorten = true;
         for (boolean sh : new boolean[]{true, false}) {
-            Rider.Built b = rider.build(bestKnots, ramps, sh);
+            Rider.Built b = rider.build(ride, bestKnots, ramps, sh);
             if (b != null && b.admissibleThroughout() && (best == null || b.holdEndS() < best.holdEndS())) {
                 best = b;
                 shorten = sh;
@@ -309,7 +309,7 @@ public final class Planner {
                 break;
             }
             rider.setMargin(m);
-            Rider.Built b = rider.build(bestKnots, ramps, shorten);
+            Rider.Built b = rider.build(ride, bestKnots, ramps, shorten);
             if (b == null || !b.admissibleThroughout()) {
                 if (passed == null) {
                     continue;
