@@ -13,6 +13,7 @@ import java.util.function.Supplier;
 import org.exhale.io.CaseFile;
 import org.exhale.io.CaseYamlReader;
 import org.exhale.planning.LowerBound;
+import org.exhale.planning.PlanResult;
 import org.exhale.planning.Planner;
 import org.exhale.simulation.BakeCase;
 import org.exhale.simulation.BakeSimulator;
@@ -31,15 +32,15 @@ final class BenchCommand implements Callable<Integer> {
     @Option(names = "--data", paramLabel = "DIR", defaultValue = "data/demo", description = "Folder of the demo cases.")
     Path data;
 
+    @Option(names = "--bench-data", paramLabel = "DIR", defaultValue = "data/bench",
+            description = "Folder of further planning cases: their lower bounds are timed, and plan, ride and bound are reported for each (default ${DEFAULT-VALUE}).")
+    Path benchData;
+
     @Option(names = "--repeats", defaultValue = "30", description = "Timed repetitions of each simulation (default ${DEFAULT-VALUE}).")
     int repeats;
 
     @Option(names = "--plan-repeats", defaultValue = "5", description = "Timed repetitions of each plan (default ${DEFAULT-VALUE}).")
     int planRepeats;
-
-    @Option(names = "--bench-data", paramLabel = "DIR", defaultValue = "data/bench",
-            description = "Folder of the extra bench cases for the lower bounds (default ${DEFAULT-VALUE}).")
-    Path benchData;
 
     @Option(names = "--bound-repeats", defaultValue = "5", description = "Timed repetitions of each lower bound (default ${DEFAULT-VALUE}).")
     int boundRepeats;
@@ -56,6 +57,21 @@ final class BenchCommand implements Callable<Integer> {
         Map<String, Supplier<Object>> plans = new LinkedHashMap<>();
         plans.put("plan porous-line", () -> Planner.plan(porous.bake(), porous.tool()));
         plans.put("plan dense-disc", () -> Planner.plan(dense.bake(), dense.tool()));
+        Map<String, CaseFile> planCases = new LinkedHashMap<>();
+        planCases.put("porous-line", porous);
+        planCases.put("dense-disc", dense);
+        if (java.nio.file.Files.isDirectory(benchData)) {
+            try (var files = java.nio.file.Files.list(benchData)) {
+                for (Path f : files.filter(f -> f.toString().endsWith(".yaml")).sorted().toList()) {
+                    CaseFile cf = CaseYamlReader.read(f);
+                    String name = f.getFileName().toString().replaceFirst("\\.yaml$", "");
+                    planCases.put(name, cf);
+                    plans.put("plan " + name, () -> Planner.plan(cf.bake(), cf.tool()));
+                }
+            } catch (java.io.IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+        }
 
         // warm-up, interleaved
         for (int i = 0; i < 20; i++) {
@@ -92,6 +108,19 @@ final class BenchCommand implements Callable<Integer> {
         ratios.forEach(System.out::println);
         bounds(List.of(data.resolve("porous-line.yaml"), data.resolve("dense-disc.yaml"),
                 benchData.resolve("one-component-porous.yaml"), benchData.resolve("two-component-stored.yaml")));
+        // how close the plans come: lower bound <= closed-loop ride (unlimited steps) <= plan (the tool's steps)
+        System.out.println();
+        System.out.printf(Locale.ROOT, "%-22s %10s %9s %10s %10s %9s %9s %9s%n", "plan quality (min)", "bound", "rigorous",
+                "ride", "plan", "plan/ride", "plan/bnd", "plan ms");
+        for (Map.Entry<String, CaseFile> e : planCases.entrySet()) {
+            PlanResult p = Planner.plan(e.getValue().bake(), e.getValue().tool());
+            System.out.printf(Locale.ROOT, "%-22s %10.1f %9s %10s %10s %9s %9s %9.0f%n", e.getKey(), p.lowerBound().boundS() / 60,
+                    p.boundRigorous() ? "yes" : "no", Double.isFinite(p.rideS()) ? String.format(Locale.ROOT, "%.1f", p.rideS() / 60) : "-",
+                    p.feasible() ? String.format(Locale.ROOT, "%.1f", p.durationS() / 60) : "none",
+                    Double.isFinite(p.rideRatio()) ? String.format(Locale.ROOT, "%.3f", p.rideRatio()) : "-",
+                    Double.isFinite(p.boundRatio()) ? String.format(Locale.ROOT, "%.3f", p.boundRatio()) : "-",
+                    med.get("plan " + e.getKey()));
+        }
         return Main.OK;
     }
 

@@ -271,18 +271,16 @@ public final class Planner {
                 + " gas, every corner, " + String.format(java.util.Locale.ROOT, "%.0f s", control) + " control interval): "
                 + minutes(rideS) + (ride.admissibleThroughout() ? "" : ", though not admissible throughout"));
         int ramps = Math.max(1, tool.maxSteps() - 1 - (tool.hasUnload() ? 1 : 0));
-        // knots along the ride for several step counts; the shortest recipe wins
+        // knots along the ride; ramps whose end the setpoint grid rounded down made as short as admissible, or
+        // not (see Rider.build): the shorter recipe wins
         Rider.Built best = null;
-        double[] bestKnots = null;
-        for (int m = ramps; m >= Math.max(1, ramps - 1); m--) {
-            double[] knots = knotTimes(ride, m);
-            if (bestKnots != null && java.util.Arrays.equals(knots, bestKnots)) {
-                continue;
-            }
-            Rider.Built b = rider.build(knots, ramps);
+        double[] bestKnots = knotTimes(ride, ramps);
+        boolean shorten = true;
+        for (boolean sh : new boolean[]{true, false}) {
+            Rider.Built b = rider.build(ride, bestKnots, ramps, sh);
             if (b != null && b.admissibleThroughout() && (best == null || b.holdEndS() < best.holdEndS())) {
                 best = b;
-                bestKnots = knots;
+                shorten = sh;
             }
         }
         if (best == null) {
@@ -311,7 +309,7 @@ public final class Planner {
                 break;
             }
             rider.setMargin(m);
-            Rider.Built b = rider.build(bestKnots, ramps);
+            Rider.Built b = rider.build(ride, bestKnots, ramps, shorten);
             if (b == null || !b.admissibleThroughout()) {
                 if (passed == null) {
                     continue;

@@ -126,8 +126,11 @@ final class Rider {
      * A recipe along the ride: ramps ending at the ride's times {@code knotTimesS} (after the start),
      * each to the highest admissible setpoint on the tool's grid, then the final hold and the
      * cool-down. At most {@code maxRamps} ramps, the last one to the cap when the knots end below it.
+     * With {@code shorten}, a ramp whose end the setpoint grid rounded down is made as short as is
+     * still admissible; that gains time, but can leave the bake nearer a limit that tightens under a
+     * hold (autocatalytic kinetics), so the planner builds both ways.
      */
-    Built build(double[] knotTimesS, int maxRamps) {
+    Built build(Ride ride, double[] knotTimesS, int maxRamps, boolean shorten) {
         BakeStepper st = start();
         List<Step> steps = new ArrayList<>();
         double ts = Math.max(tool.timeStepS(), 1e-3);
@@ -147,11 +150,19 @@ final class Rider {
             double end;
             {
                 double loK = Math.max(startK, sp - tool.maxRampDownKPerS() * d);
-                end = highestOnGrid(st, d, loK, hiK);
+                end = highestOnGrid(st, d, loK, hiK, interpolate(ride, knotTimesS[i]));
                 if (Double.isNaN(end)) {
                     ok = false;
                     end = Math.max(startK, Planner.ceilTo(loK - org.exhale.PhysicalConstants.ZERO_CELSIUS_K,
                             Math.max(tool.setpointStepK(), 0)) + org.exhale.PhysicalConstants.ZERO_CELSIUS_K);
+                } else if (end > sp && end < capK - 1e-9 && shorten) {
+                    // the grid rounded the end down: get there sooner, as fast as is admissible
+                    double fastest = Math.max(Planner.ceilTo((end - sp) / tool.maxRampUpKPerS(), ts), minStep);
+                    double shorter = shortestTo(st, end, Math.min(fastest, d), d, ts);
+                    if (!Double.isNaN(shorter)) {
+                        prev -= d - shorter;
+                        d = shorter;
+                    }
                 }
             }
             if (end >= capK - 1e-9) {
@@ -168,6 +179,11 @@ final class Rider {
             st.advance(end, d);
             used++;
         }
+        return finish(st, steps, used, maxRamps, ts, minStep, ok);
+    }
+
+    /** One more ramp to the cap when the target is far, then the final hold and the cool-down. */
+    private Built finish(BakeStepper st, List<Step> steps, int used, int maxRamps, double ts, double minStep, boolean ok) {
         if (st.setpointK() < capK - 1e-9 && used < maxRamps && holdToTarget(st, ts, minStep) > 3600) {
             // the knots ended well short of the target: one more ramp to the cap, as fast as admissible
             double sp = st.setpointK();
@@ -235,35 +251,63 @@ final class Rider {
         return before.timeS() + hi;
     }
 
-    /** The shortest duration in [fastest, slowest] on the time grid of an admissible ramp to endK; NaN if none. */
+    /**
+     * The shortest duration in [fastest, slowest] on the time grid of an admissible ramp to endK; NaN
+     * if none. Regula falsi (Illinois) on the margin between the two ends, to 0.5 % of the duration.
+     */
     private double shortestTo(BakeStepper st, double endK, double fastest, double slowest, double ts) {
-        if (admissible(st, endK, fastest)) {
+        double fa = f(st, endK, fastest);
+        if (fa >= 0) {
             return fastest;
         }
-        if (!admissible(st, endK, slowest)) {
+        double fb = f(st, endK, slowest);
+        if (fb < 0) {
             return Double.NaN;
         }
-        double lo = fastest;
-        double hi = slowest;
-        while (hi - lo > Math.max(ts, 0.005 * hi)) {
-            double mid = Planner.ceilTo(0.5 * (lo + hi), ts);
-            if (mid >= hi) {
+        double a = fastest;    // fails
+        double b = slowest;    // passes
+        int side = 0;
+        while (b - a > Math.max(ts, 0.005 * b)) {
+            double m;
+            if (Double.isFinite(fa) && Double.isFinite(fb) && fb != fa) {
+                m = b - fb * (b - a) / (fb - fa);
+                m = Math.min(Math.max(m, a + 0.1 * (b - a)), b - 0.1 * (b - a));
+            } else {
+                m = 0.5 * (a + b);
+            }
+            m = Planner.ceilTo(m, ts);
+            if (m >= b || m <= a) {
                 break;
             }
-            if (admissible(st, endK, mid)) {
-                hi = mid;
+            double fm = f(st, endK, m);
+            if (fm >= 0) {
+                b = m;
+                fb = fm;
+                if (side == 1) {
+                    fa *= 0.5;
+                }
+                side = 1;
             } else {
-                lo = mid;
+                a = m;
+                fa = fm;
+                if (side == -1) {
+                    fb *= 0.5;
+                }
+                side = -1;
             }
         }
-        return hi;
+        return b;
     }
 
-    /** The highest admissible end setpoint on the tool's setpoint grid in [lo, hi]; NaN if none. */
-    private double highestOnGrid(BakeStepper st, double d, double lo, double hi) {
+    /**
+     * The highest admissible end setpoint on the tool's setpoint grid in [lo, hi]; NaN if none. Starts
+     * at the grid point nearest {@code guessK} (the ride's setpoint there) and steps away from it
+     * with doubling steps until the boundary is bracketed, then bisects.
+     */
+    private double highestOnGrid(BakeStepper st, double d, double lo, double hi, double guessK) {
         double step = tool.setpointStepK();
         if (step <= 0) {
-            return highest(st, d, lo, hi, hi, 0.01);
+            return highest(st, d, lo, hi, guessK, 0.01);
         }
         double c0 = org.exhale.PhysicalConstants.ZERO_CELSIUS_K;
         long a = (long) Math.ceil((lo - c0) / step - 1e-9);
@@ -271,21 +315,62 @@ final class Rider {
         if (b < a) {
             return Double.NaN;
         }
-        if (admissible(st, c0 + b * step, d)) {
-            return c0 + b * step;
-        }
-        if (!admissible(st, c0 + a * step, d)) {
-            return Double.NaN;
-        }
-        while (b - a > 1) {
-            long m = (a + b) / 2;
-            if (admissible(st, c0 + m * step, d)) {
-                a = m;
-            } else {
-                b = m;
+        long g = Math.min(Math.max(Math.round((guessK - c0) / step), a), b);
+        long pass;
+        long fail;
+        if (admissible(st, c0 + g * step, d)) {
+            pass = g;
+            long w = 1;
+            while (true) {
+                if (pass == b) {
+                    return c0 + b * step;
+                }
+                long up = Math.min(b, pass + w);
+                if (admissible(st, c0 + up * step, d)) {
+                    pass = up;
+                    w *= 2;
+                } else {
+                    fail = up;
+                    break;
+                }
+            }
+        } else {
+            fail = g;
+            long w = 1;
+            while (true) {
+                if (fail == a) {
+                    return Double.NaN;
+                }
+                long down = Math.max(a, fail - w);
+                if (admissible(st, c0 + down * step, d)) {
+                    pass = down;
+                    break;
+                }
+                fail = down;
+                w *= 2;
             }
         }
-        return c0 + a * step;
+        while (fail - pass > 1) {
+            long m = (pass + fail) / 2;
+            if (admissible(st, c0 + m * step, d)) {
+                pass = m;
+            } else {
+                fail = m;
+            }
+        }
+        return c0 + pass * step;
+    }
+
+    private static double interpolate(Ride ride, double t) {
+        double[] ts = ride.timesS();
+        double[] sp = ride.setpointsK();
+        for (int i = 1; i < ts.length; i++) {
+            if (t <= ts[i]) {
+                double f = (t - ts[i - 1]) / (ts[i] - ts[i - 1]);
+                return sp[i - 1] + f * (sp[i] - sp[i - 1]);
+            }
+        }
+        return sp[sp.length - 1];
     }
 
     /**
