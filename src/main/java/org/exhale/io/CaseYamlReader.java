@@ -700,16 +700,12 @@ public final class CaseYamlReader {
         if (b.cap().porosity() > 0.8) {
             warnings.add("cap.porosity " + b.cap().porosity() + " is above 0.8, unusual for a cap film");
         }
-        List<String> sealedIn = new ArrayList<>();
         for (Component c : b.polymer().components()) {
             double ownPi0 = c.product().hasOwnPermeability() ? c.product().permeabilityPi0() : b.cap().permeabilityPi0();
             if (b.cap().porosity() == 0 && ownPi0 == 0) {
-                sealedIn.add("'" + c.name() + "'");
+                warnings.add("the cap is dense (porosity 0) and gives the product of '" + c.name()
+                        + "' no permeability (neither its own nor the cap's): that gas has no way out");
             }
-        }
-        if (!sealedIn.isEmpty()) {
-            warnings.add("the cap is dense (porosity 0) and gives the product of " + String.join(", ", sealedIn)
-                    + " no permeability (neither its own nor the cap's): that gas has no way out");
         }
         for (Component c : b.polymer().components()) {
             if (b.cap().porosity() > 0 && c.product().kineticDiameterM() >= 2 * b.cap().poreRadiusM()) {
