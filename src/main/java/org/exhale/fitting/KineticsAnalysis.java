@@ -135,6 +135,11 @@ public final class KineticsAnalysis {
                 }
             }
             chosen = f;
+            String alike = f == null ? null : ComponentChoice.alike(f, beta);
+            if (alike != null) {
+                warnings.add("with " + f.components().size() + " components as asked, " + alike
+                        + "; the data support fewer (try --components auto)");
+            }
         }
         List<KineticsReport.FamilyFit> families = new ArrayList<>();
         String intervalMethod = "none";
