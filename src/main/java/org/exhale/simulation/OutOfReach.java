@@ -6,7 +6,7 @@ package org.exhale.simulation;
  * quantity, the corner and the time; the command line prints it on one line and exits with code 2
  * (see docs/errors.md), never as an internal error.
  */
-public final class OutOfReach extends RuntimeException {
+public class OutOfReach extends RuntimeException {
     public OutOfReach(String message, Throwable cause) {
         super(message, cause);
     }

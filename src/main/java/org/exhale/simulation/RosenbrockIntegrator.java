@@ -179,13 +179,17 @@ final class RosenbrockIntegrator {
     }
 
     /** The integrator cannot go on: the step size fell to the clock's resolution, or the state stopped being finite. */
-    static final class StepFailure extends RuntimeException {
+    static final class StepFailure extends OutOfReach {
         final double time;
         final int index;
         final boolean overflow;
 
         StepFailure(double time, int index, boolean overflow) {
-            super((overflow ? "the state stopped being finite" : "step size underflow") + " at t = " + time + " s");
+            // callers that know what state component `index` means say so (CornerRun); this text is the fallback
+            super((overflow ? "the model overflows: the bake's state stops being finite"
+                    : "the model cannot resolve the bake: a quantity changes faster than the time resolution of the "
+                      + "simulation (about 1e-14 of the time) allows") + String.format(java.util.Locale.ROOT, " at t = %.6g s", time)
+                    + "; such a case is outside the model's reach, check the kinetics and cap values", null);
             this.time = time;
             this.index = index;
             this.overflow = overflow;
