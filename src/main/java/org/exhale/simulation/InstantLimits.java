@@ -76,7 +76,7 @@ public final class InstantLimits {
         double m = ratio(maxPressurePa, dp);
         if (structure != null) {
             CapResponse r = structure.evaluate(temperatureK, dp);
-            m = Math.min(m, ratio(structure.allowedStressPa(), r.edgeStressPa()));
+            m = Math.min(m, ratio(structure.allowedStressPa(), r.maxStressPa()));
             m = Math.min(m, ratio(structure.allowedCrackingJPerM2(), r.channelCrackingJPerM2()));
             m = Math.min(m, ratio(structure.allowedDelaminationJPerM2(), r.delaminationJPerM2()));
             m = Math.min(m, ratio(structure.bucklingStressPa(), r.bucklingCompressionPa()));
@@ -101,7 +101,7 @@ public final class InstantLimits {
         double m = ratio(maxPressurePa, dp);
         if (structure != null) {
             CapResponse r = structure.evaluate(temperatureK, dp);
-            m = Math.min(m, ratio(structure.allowedStressPa(), r.edgeStressPa()));
+            m = Math.min(m, ratio(structure.allowedStressPa(), r.maxStressPa()));
             m = Math.min(m, ratio(structure.allowedCrackingJPerM2(), r.channelCrackingJPerM2()));
             m = Math.min(m, ratio(structure.bucklingStressPa(), r.bucklingCompressionPa()));
             m = Math.min(m, ratio(structure.maxDeflectionM(), Math.abs(r.deflectionM())));
