@@ -65,7 +65,7 @@ public final class SummaryJsonWriter {
         m.put("gas_regime", r.regime().label());
         m.put("mass_balance_error", num(r.massBalanceError()));
         if (r.bake().film() != null) {
-            m.put("peak_cap_stress_Pa", num(r.max("edge_stress_Pa").value()));
+            m.put("peak_cap_stress_Pa", num(r.max("cap_stress_Pa").value()));
             m.put("peak_deflection_m", num(r.max("deflection_m").value()));
         }
         if (r.bake().chamber() != null) {

@@ -3,82 +3,56 @@ package org.exhale.mechanics;
 import org.hipparchus.util.FastMath;
 
 /**
- * The cap film over its span as a clamped plate–membrane: stresses, deflection and fracture
- * driving forces at a temperature and an excess pressure (inside minus outside). Immutable; all
- * constants are computed once in the constructor, and {@link #deflectionM}, {@link #edgeStressPa}
- * and {@link #thermalStressPa} allocate nothing, so they may be called in a hot loop.
+ * The cap film over its span as a clamped plate carrying in-plane force and pressure (Föppl–von
+ * Kármán): stresses, deflection and fracture driving forces at a temperature and an excess
+ * pressure (inside minus outside). Immutable and allocation-free apart from the result record.
  *
- * <h2>Relations (SI units; Ē = E/(1−ν²), D = E h³/(12(1−ν²)), w the full span)</h2>
+ * <h2>Relations (SI units; Ē = E/(1−ν²), D = Ē h³/12, a = w/2 the half-span or radius)</h2>
  * <ul>
  *   <li><b>Thermal mismatch</b> (biaxial): σ_th(T) = σ_i + E/(1−ν) (α_s − α_f)(T − T_0f)
  *       (Freund &amp; Suresh, Thin Film Materials, 2003; formula from memory, unconfirmed).</li>
- *   <li><b>Load–deflection</b>: Δp = K₁ δ + K_σ max(σ_th, 0) δ + K₃ δ³ with the plate term
- *       K₁ = D/(c_δ w⁴) ({@link PlateCoefficients}), the pre-tension term K_σ and the stretching
- *       term K₃ of the bulge-test relations:
- *       <ul>
- *         <li>line (plane strain, a = w/2; Vlassak &amp; Nix, J. Mater. Res. 7 (1992) 3242):
- *             p = 2σ₀ h δ/a² + 4 E h δ³/(3(1−ν²) a⁴), so K_σ = 8h/w², K₃ = (64/3) Ē h/w⁴;</li>
- *         <li>disc (a = w/2; Small &amp; Nix, J. Mater. Res. 7 (1992) 1553):
- *             p = 4σ₀ h δ/a² + (8/3)(1−0.24ν) E h δ³/((1−ν) a⁴), so K_σ = 16h/w²,
- *             K₃ = (128/3)(1−0.24ν) E h/((1−ν) w⁴);</li>
- *         <li>rectangle w × L: the line's K_σ and K₃ (this package's choice, see below).</li>
- *       </ul>
- *       The cubic has one real root for every Δp (all coefficients positive); it is taken in
- *       closed form, δ = 2√(P/3) sinh(⅓ asinh((3√3/2) (Δp/K₃) / P^{3/2})), P = K_lin/K₃, which is
- *       exact, stable in both the plate and the membrane limit, odd in Δp, and needs no iteration.</li>
- *   <li><b>Bending stress</b> from the bending share of the load Δp_b = K₁ δ: σ_b = c_σ Δp_b w²/h².</li>
- *   <li><b>Membrane stress</b> from the stretching share Δp_m = K₃ δ³ and the equilibrium of the
- *       deflected membrane that the cited σ₀ terms express (p = 2σ h δ/a² for the cylindrical line,
- *       p = 4σ h δ/a² for the spherical disc): line σ_m = (8/3) Ē δ²/w², which is also Ē times the
- *       plane-strain stretch ε = (2/3)(δ/a)² of a parabolic profile z = δ(1 − x²/a²), since
- *       ε = (1/2a)∫½ z'² dx = (2/3)(δ/a)²; disc σ_m = (8/3)(1−0.24ν)/(1−ν) · E δ²/w², the mean
- *       biaxial stretching stress of the Small &amp; Nix fit. The pre-tension is not counted again:
- *       it is σ_th.</li>
- *   <li><b>Edge stress</b> σ_max = σ_th + σ_m + σ_b, the face in tension at the clamped edge.
- *       Under suction (Δp &lt; 0) δ is negative and the inner face is the one in tension; σ_b and
- *       σ_m are reported as magnitudes, so the relation holds for either sign.</li>
- *   <li><b>Channel cracking</b> G_ch = Z σ_max² h/Ē, Z = 1.976, only while σ_max &gt; 0
+ *   <li><b>Strip</b> (a long line; plane strain): the clamped beam-column under pressure q and the
+ *       membrane force N = σ_th h + Ē h ε, ε = (1/2a)∫½ w'² dx the stretch of the deflected shape.
+ *       With k² = N/D, u = ka: edge moment M_e = (q/k²)(u coth u − 1), centre moment
+ *       M_c = (q/k²)(1 − u/sinh u), deflection δ = (q a²/2N)(1 − 2 tanh(u/2)/u). N is solved
+ *       self-consistently (Newton on s = N a²/D, monotone, one root) with ε taken from this same
+ *       beam-column shape, so the result is the exact plane-strain Föppl–von Kármán solution.
+ *       In compression (N &lt; 0, above buckling) the hyperbolic functions become circular ones; as
+ *       N → 0 the clamped-plate values M_e = q a²/3, δ = q a⁴/(24 D) follow continuously (series,
+ *       see {@link MembraneFunctions}).</li>
+ *   <li><b>Disc</b>: the axisymmetric plate under a uniform in-plane force N and pressure: edge
+ *       moment M_e = (q/2k²)(u I₀(u)/I₁(u) − 2), centre moment (1+ν)(q/2k²)(1 − u/(2 I₁(u))),
+ *       with J Bessel functions in compression. The stretching is uniform-force equivalent: the
+ *       biaxial strain that the area change of the deflected (Bessel) shape gives,
+ *       N = σ_th h + E h/(1−ν) · (1/2a²)∫φ² r dr, solved self-consistently. The true stretching
+ *       force varies with radius; against an axisymmetric Föppl–von Kármán solution this
+ *       approximation is measured in the tests (docs/model.md states the figures).</li>
+ *   <li><b>Rectangle</b> w × L: the strip of width w (the solution across the long edges). It is
+ *       conservative: in the small-deflection limit the strip's edge stress ½ q w²/h² is the
+ *       largest of Roark's clamped-rectangle values (β1 ≤ 0.5, Table 11.4 case 8a), and in the
+ *       membrane regime the short edges only add support, so the strip deflects and stretches at
+ *       least as much as any rectangle of the same width.</li>
+ *   <li><b>Face stresses</b>: σ_edge = N/h + 6|M_e|/h², σ_centre = N/h + 6|M_c|/h². Strength,
+ *       the bonded channel crack and delamination are checked on the larger of the two.</li>
+ *   <li><b>Channel cracking where bonded</b> G = Z σ_max² h/Ē, Z = 1.976, only while σ_max &gt; 0
  *       (Hutchinson &amp; Suo, Adv. Appl. Mech. 29 (1992) 63; Beuth, Int. J. Solids Struct. 29 (1992)
  *       1657: no elastic mismatch).</li>
- *   <li><b>Delamination</b> G_d = σ_d² h/(2Ē) (steady state, Hutchinson &amp; Suo 1992) with σ_d the
- *       largest face-stress magnitude at the edge, max(|σ_max|, |σ_th + σ_m − σ_b|). This equals
- *       σ_max² whenever the mean stress σ_th + σ_m is tensile; when the mean stress is compressive
- *       the compressed face is taken, which keeps the check conservative. It is also never below
- *       the energy released by a film carrying both a force and a moment,
- *       (h/2Ē)(σ_mean² + σ_b²/3), since (|a| + b)² ≥ a² + b²/3.</li>
+ *   <li><b>Crack along the free span</b> (derived, no published source; docs/model.md): a
+ *       through-crack running along the freed span relieves the transverse force and moment across
+ *       the whole span; in steady state it releases at most the elastic energy stored per unit
+ *       length, G_span = (1/(2Ē)) ∫_span (σ_N² + σ_b(x)²/3) dx with σ_N = max(N,0)/h and
+ *       σ_b = 6M(x)/h². For a uniform stress that is σ² w/(2Ē). Strip: ∫M² dx in closed form;
+ *       disc: along a diameter, with the strip's distribution of M across the span scaled to the
+ *       disc's edge moment. Counted while σ_max &gt; 0. The larger of the two cracks governs.</li>
+ *   <li><b>Delamination</b> G_d = σ_d² h/(2Ē) (steady state, Hutchinson &amp; Suo 1992), σ_d the
+ *       largest face-stress magnitude (either face, edge or centre).</li>
  *   <li><b>Buckling</b> of the freed cap under compressive σ_th: line σ_cr = (π²/3) Ē (h/w)²
- *       (clamped strip, = (π²/12) Ē (h/b)² with b = w/2, Hutchinson &amp; Suo 1992); disc
- *       σ_cr = (j₁₁²/3) Ē (h/w)², j₁₁ = 3.8317 the first zero of J₁ (clamped circular plate,
- *       N_cr = 14.68 D/a²); rectangle: the line value for the short side, a lower bound, because a
- *       plate inside the strip of the same width cannot buckle more easily (its admissible buckling
- *       modes are a subset of the strip's).</li>
+ *       (clamped strip); disc σ_cr = (j₁₁²/3) Ē (h/w)², j₁₁ = 3.8317 the first zero of J₁;
+ *       rectangle: the line value for the short side (a lower bound).</li>
  * </ul>
  *
- * <h2>Where this goes beyond the plain contract, and why</h2>
- * <ul>
- *   <li><b>Pre-tension stiffening.</b> Both cited bulge-test relations contain the residual-stress
- *       term; a tensile cap carries part of the pressure as a pre-tensioned membrane. For thin caps
- *       that term is not small: on a line its ratio to the plate term is σ_th w²/(4 Ē h²), about 2.5
- *       for 100 MPa in a 100 nm thick, 10 µm wide cap with Ē = 100 GPa. Leaving it out overestimates δ and σ_b
- *       several-fold. It is on by default and can be switched off (constructor flag) to reproduce
- *       the plain plate + stretching relation.</li>
- *   <li><b>Compression does not soften the cap here.</b> Compressive σ_th would lower the linear stiffness and
- *       make it vanish near the buckling stress; the relation above then loses its unique root and
- *       describes a buckled cap it was not made for. So compression is left out of the stiffness
- *       (K_σ uses max(σ_th, 0)) and is judged by the buckling check instead. Below buckling, the
- *       deflection under compression is therefore underestimated by the usual amplification
- *       1/(1 − |σ_th|/σ_cr) (Timoshenko &amp; Gere, Theory of Elastic Stability; from memory,
- *       unconfirmed); keep |σ_th| well under σ_cr (a buckling safety factor) where that matters.</li>
- *   <li><b>Rectangle stretching.</b> No published large-deflection relation for clamped
- *       rectangles is used here. The line's stretching and pre-tension terms are used for the short
- *       span: a rectangle lies inside the strip of its width, so it is stiffer in stretching and its
- *       true deflection and membrane stress at a given pressure are no larger than the strip's.
- *       The plate term is the rectangle's own (Roark), so small deflections are exact and large ones
- *       are conservative (deflection and stresses overestimated).</li>
- * </ul>
- *
- * <p>Validity: Kirchhoff plates (w/h ≳ 10), linear elastic, isotropic film; the supports are rigid
- * clamps and the substrate much thicker than the film.
+ * <p>Validity: Kirchhoff plates (w/h ≳ 10), moderate rotations, linear elastic, isotropic film;
+ * rigid clamps and a substrate much thicker than the film.
  */
 public final class CapStructure {
 
@@ -91,48 +65,36 @@ public final class CapStructure {
     public static final double CHANNEL_CRACK_Z = 1.976;
     /** First zero of the Bessel function J₁, 3.8317 (clamped circular plate buckling). */
     public static final double BESSEL_J1_FIRST_ZERO = 3.8317;
+    /** First zero of J₁ to double precision, 3.8317059702075125. */
+    static final double BESSEL_J1_FIRST_ZERO_EXACT = 3.8317059702075125;
 
     private final FilmProperties film;
     private final double thicknessM;
     private final SpanGeometry span;
     private final double substrateCtePerK;
     private final MechanicalLimits limits;
-    private final boolean tensionStiffening;
     private final PlateCoefficients plate;
+    private final boolean disc;
 
     private final double planeStrainModulusPa;
     private final double flexuralRigidityNm;
     /** σ_th = σ_i + thermalSlope (T − T_0f). */
     private final double thermalSlopePaPerK;
-    private final double plateStiffnessPaPerM;      // K₁
-    private final double pretensionStiffnessPerM;   // K_σ: K_σ σ_th in Pa/m
-    private final double stretchStiffnessPaPerM3;   // K₃
-    private final double membraneStressPaPerM2;     // σ_m = this δ²
-    private final double bendingStressPerPa;        // σ_b = this Δp_b
+    private final double halfSpanM;
+    /** s0 per Pa of σ_th: h a²/D. */
+    private final double sPerPa;
+    /** Q per Pa of pressure: a⁴/(D h). */
+    private final double qPerPa;
+    /** s − s0 = stretchGain Q² F(s). */
+    private final double stretchGain;
+    private final double bucklingS;
     private final double bucklingStressPa;
 
-    /** A cap with tension stiffening (see the class description). */
     public CapStructure(FilmProperties film, double thicknessM, SpanGeometry span, double substrateCtePerK,
                         MechanicalLimits limits) {
-        this(film, thicknessM, span, substrateCtePerK, limits, true);
-    }
-
-    /**
-     * @param film               film properties
-     * @param thicknessM         film thickness h [m], positive and below 100 span widths (thin-plate
-     *                           theory wants w/h above about 5; the case check warns)
-     * @param span               shape and size of the free span
-     * @param substrateCtePerK   substrate CTE α_s [1/K] (e.g. {@link #SILICON_CTE_PER_K})
-     * @param limits             safety factor and deflection limit
-     * @param tensionStiffening  whether tensile σ_th stiffens the cap (the bulge-test σ₀ term)
-     */
-    public CapStructure(FilmProperties film, double thicknessM, SpanGeometry span, double substrateCtePerK,
-                        MechanicalLimits limits, boolean tensionStiffening) {
         if (film == null || span == null || limits == null) {
             throw new IllegalArgumentException("cap needs film properties, a span and limits");
         }
-        // Thin-plate theory wants w/h above about 5; thicker caps are still computed (their
-        // bending stress is small beside the thermal term) and the case check warns.
         if (!(thicknessM > 0 && thicknessM < 100 * span.widthM())) {
             throw new IllegalArgumentException("cap thickness must be positive and below 100 span widths "
                     + span.widthM() + " m, got " + thicknessM + " m");
@@ -146,33 +108,24 @@ public final class CapStructure {
         this.span = span;
         this.substrateCtePerK = substrateCtePerK;
         this.limits = limits;
-        this.tensionStiffening = tensionStiffening;
         this.plate = PlateCoefficients.forSpan(span);
+        this.disc = span.shape() == SpanGeometry.Shape.DISC;
 
-        double e = film.youngsModulusPa();
-        double nu = film.poisson();
         double h = thicknessM;
         double w = span.widthM();
-        double w2 = w * w;
-        double w4 = w2 * w2;
+        double a = w / 2;
+        halfSpanM = a;
         planeStrainModulusPa = film.planeStrainModulusPa();
         flexuralRigidityNm = planeStrainModulusPa * h * h * h / 12;
         thermalSlopePaPerK = film.biaxialModulusPa() * (substrateCtePerK - film.ctePerK());
-        plateStiffnessPaPerM = flexuralRigidityNm / (plate.deflectionCoefficient() * w4);
-        bendingStressPerPa = plate.edgeStressCoefficient() * w2 / (h * h);
+        sPerPa = h * a * a / flexuralRigidityNm;
+        qPerPa = a * a * a * a / (flexuralRigidityNm * h);
+        stretchGain = disc ? 6 * (1 + film.poisson()) : 3;
+        bucklingS = disc ? MembraneFunctions.DISC_BUCKLING_S : MembraneFunctions.STRIP_BUCKLING_S;
         double hw = h / w;
-        if (span.shape() == SpanGeometry.Shape.DISC) {
-            double smallNix = (1 - 0.24 * nu) / (1 - nu);
-            pretensionStiffnessPerM = 16 * h / w2;
-            stretchStiffnessPaPerM3 = 128.0 / 3 * smallNix * e * h / w4;
-            membraneStressPaPerM2 = 8.0 / 3 * smallNix * e / w2;
-            bucklingStressPa = BESSEL_J1_FIRST_ZERO * BESSEL_J1_FIRST_ZERO / 3 * planeStrainModulusPa * hw * hw;
-        } else {
-            pretensionStiffnessPerM = 8 * h / w2;
-            stretchStiffnessPaPerM3 = 64.0 / 3 * planeStrainModulusPa * h / w4;
-            membraneStressPaPerM2 = 8.0 / 3 * planeStrainModulusPa / w2;
-            bucklingStressPa = Math.PI * Math.PI / 3 * planeStrainModulusPa * hw * hw;
-        }
+        bucklingStressPa = disc
+                ? BESSEL_J1_FIRST_ZERO * BESSEL_J1_FIRST_ZERO / 3 * planeStrainModulusPa * hw * hw
+                : Math.PI * Math.PI / 3 * planeStrainModulusPa * hw * hw;
     }
 
     /** σ_th(T) = σ_i + E/(1−ν) (α_s − α_f)(T − T_0f) [Pa]. */
@@ -180,18 +133,21 @@ public final class CapStructure {
         return film.intrinsicStressPa() + thermalSlopePaPerK * (temperatureK - film.stressFreeTemperatureK());
     }
 
-    /** Centre deflection δ [m] at temperature T and excess pressure Δp (allocation-free). */
+    /** Centre deflection δ [m] at temperature T and excess pressure Δp. */
     public double deflectionM(double temperatureK, double excessPressurePa) {
-        return solveDeflection(linearStiffness(thermalStressPa(temperatureK)), excessPressurePa);
+        double s0 = sPerPa * thermalStressPa(temperatureK);
+        double q = qPerPa * Math.abs(excessPressurePa);
+        if (q == 0) {
+            return 0;
+        }
+        double s = solveTension(s0, q);
+        double f = disc ? MembraneFunctions.discDeflection(s) : MembraneFunctions.stripDeflection(s);
+        return Math.signum(excessPressurePa) * thicknessM * q * f;
     }
 
-    /** Edge stress σ_max [Pa] at temperature T and excess pressure Δp (allocation-free). */
+    /** Largest face stress max(σ_edge, σ_centre) [Pa] at temperature T and excess pressure Δp. */
     public double edgeStressPa(double temperatureK, double excessPressurePa) {
-        double sigmaTh = thermalStressPa(temperatureK);
-        double delta = solveDeflection(linearStiffness(sigmaTh), excessPressurePa);
-        double sigmaB = bendingStressPerPa * (plateStiffnessPaPerM * Math.abs(delta));
-        double sigmaM = membraneStressPaPerM2 * delta * delta;
-        return sigmaTh + sigmaM + sigmaB;    // same operations as evaluate, so the same value
+        return evaluate(temperatureK, excessPressurePa).maxStressPa();
     }
 
     /**
@@ -205,17 +161,55 @@ public final class CapStructure {
         if (!Double.isFinite(excessPressurePa)) {
             throw new IllegalArgumentException("excess pressure must be finite, got " + excessPressurePa);
         }
+        double h = thicknessM;
         double sigmaTh = thermalStressPa(temperatureK);
-        double delta = solveDeflection(linearStiffness(sigmaTh), excessPressurePa);
-        double bendingLoad = plateStiffnessPaPerM * Math.abs(delta);
-        double sigmaB = bendingStressPerPa * bendingLoad;
-        double sigmaM = membraneStressPaPerM2 * delta * delta;
-        double sigmaMax = sigmaTh + sigmaM + sigmaB;
+        double s0 = sPerPa * sigmaTh;
+        double q = qPerPa * Math.abs(excessPressurePa);
+        double s = q == 0 ? s0 : solveTension(s0, q);
+        double sigmaN = s / sPerPa;                               // N/h
+        double delta;
+        double mEdge;                                             // |M_e| h/(D Q) etc. in units of D h/a²
+        double mCentre;
+        double ratioSquare;                                       // ∫M² dx / (2a M_e²) across the span
+        if (q == 0) {
+            delta = 0;
+            mEdge = 0;
+            mCentre = 0;
+            ratioSquare = 0;
+        } else if (disc) {
+            delta = h * q * MembraneFunctions.discDeflection(s);
+            mEdge = q * Math.abs(MembraneFunctions.discEdge(s));
+            mCentre = q * (1 + film.poisson()) * Math.abs(MembraneFunctions.discCentre(s));
+            double fe = MembraneFunctions.stripEdge(s);
+            ratioSquare = s > MembraneFunctions.STRIP_BUCKLING_S
+                    ? MembraneFunctions.stripBendingEnergy(s) / (2 * fe * fe) : 1;
+        } else {
+            delta = h * q * MembraneFunctions.stripDeflection(s);
+            double fe = MembraneFunctions.stripEdge(s);
+            mEdge = q * Math.abs(fe);
+            mCentre = q * Math.abs(MembraneFunctions.stripCentre(s));
+            ratioSquare = MembraneFunctions.stripBendingEnergy(s) / (2 * fe * fe);
+        }
+        // M = (D h/a²) m; bending face stress 6M/h² = (6 D/(h a²)) m = m/sPerPa·6/h²·h²... written out:
+        double stressPerM = 6 * flexuralRigidityNm / (h * halfSpanM * halfSpanM);
+        double sigmaBEdge = stressPerM * mEdge;
+        double sigmaBCentre = stressPerM * mCentre;
+        double sigmaEdge = sigmaN + sigmaBEdge;
+        double sigmaCentre = sigmaN + sigmaBCentre;
+        double sigmaMax = Math.max(sigmaEdge, sigmaCentre);
         double ebar = planeStrainModulusPa;
-        double gCh = sigmaMax > 0 ? CHANNEL_CRACK_Z * sigmaMax * sigmaMax * thicknessM / ebar : 0;
-        double sigmaD = Math.max(Math.abs(sigmaMax), Math.abs(sigmaTh + sigmaM - sigmaB));
-        double gD = sigmaD * sigmaD * thicknessM / (2 * ebar);
-        double fraction = excessPressurePa == 0 ? 1 : Math.min(1, bendingLoad / Math.abs(excessPressurePa));
+        double bonded = sigmaMax > 0 ? CHANNEL_CRACK_Z * sigmaMax * sigmaMax * h / ebar : 0;
+        double spanCrack = 0;
+        if (sigmaMax > 0) {
+            double membrane = Math.max(sigmaN, 0);
+            spanCrack = span.widthM() / (2 * ebar)
+                    * (membrane * membrane + sigmaBEdge * sigmaBEdge * ratioSquare / 3);
+        }
+        double sigmaD = Math.max(Math.max(Math.abs(sigmaEdge), Math.abs(sigmaN - sigmaBEdge)),
+                Math.max(Math.abs(sigmaCentre), Math.abs(sigmaN - sigmaBCentre)));
+        double gD = sigmaD * sigmaD * h / (2 * ebar);
+        double sigmaM = Math.max(sigmaN - sigmaTh, 0);
+        double sigmaB = Math.max(sigmaBEdge, sigmaBCentre);
         EdgeTerm dominant = EdgeTerm.THERMAL;
         double largest = Math.abs(sigmaTh);
         if (sigmaB > largest) {
@@ -226,28 +220,74 @@ public final class CapStructure {
             dominant = EdgeTerm.MEMBRANE;
         }
         double buckling = sigmaTh < 0 ? -sigmaTh : 0;
-        return new CapResponse(sigmaTh, sigmaB, sigmaM, sigmaMax, delta, fraction, gCh, gD, dominant, buckling);
-    }
-
-    private double linearStiffness(double sigmaTh) {
-        return tensionStiffening && sigmaTh > 0
-                ? plateStiffnessPaPerM + pretensionStiffnessPerM * sigmaTh
-                : plateStiffnessPaPerM;
+        return new CapResponse(sigmaTh, sigmaBEdge, sigmaM, sigmaEdge, sigmaCentre,
+                Math.signum(excessPressurePa) * delta, bonded, spanCrack, gD, dominant, buckling);
     }
 
     /**
-     * The real root of K₃ δ³ + K δ = Δp (K, K₃ &gt; 0): δ = 2√(P/3) sinh(⅓ asinh(x)),
-     * P = K/K₃, x = Δp / (2 K₃ (P/3)^{3/2}); this satisfies the cubic exactly because
-     * sinh 3θ = 3 sinh θ + 4 sinh³θ.
+     * The membrane force parameter s = N a²/D: the one root of s − s0 = c Q² F(s) (F the stretching
+     * function of the shape, positive and decreasing, infinite at buckling), by Newton's method
+     * kept inside a bracket.
      */
-    private double solveDeflection(double linearStiffnessPaPerM, double excessPressurePa) {
-        if (excessPressurePa == 0) {
-            return 0;
+    /** √(c∞/F(0)) of the stretching functions: strip √((2/3)/(4/945)), disc √((3/16)/(1/6144)). */
+    private static final double STRIP_MODEL_B = Math.sqrt(157.5);
+    private static final double DISC_MODEL_B = Math.sqrt(1152);
+    private double solveTension(double s0, double q) {
+        double gain = stretchGain * q * q;
+        double floor = bucklingS * (1 - 1e-12);
+        double lo = Math.max(s0, floor);
+        double hi;
+        if (lo == s0) {
+            hi = s0 + gain * stretch(s0);
+        } else {
+            // beyond buckling at no load: the root lies above the buckling load; find an upper point
+            hi = Math.max(0, s0) + Math.cbrt(gain) + 1;
+            while (hi - s0 - gain * stretch(hi) < 0) {
+                hi = 2 * hi + 1;
+            }
         }
-        double k3 = stretchStiffnessPaPerM3;
-        double r = Math.sqrt(linearStiffnessPaPerM / (3 * k3));   // √(P/3)
-        double x = excessPressurePa / (2 * k3 * r * r * r);
-        return 2 * r * FastMath.sinh(FastMath.asinh(x) / 3);
+        // start from the model F ≈ c∞/(s + b)² (exact at s = 0 and as s → ∞): x = s + b solves
+        // x²(x − s0 − b) = gain c∞, a cubic convex right of its inflection, by Newton from the right
+        double cInf = disc ? 3.0 / 16 : 2.0 / 3;
+        double b = disc ? DISC_MODEL_B : STRIP_MODEL_B;
+        double p = s0 + b;
+        double g = gain * cInf;
+        double x = Math.max(p, 0) + Math.cbrt(g);
+        for (int i = 0; i < 30; i++) {
+            double f = x * x * (x - p) - g;
+            double dx = f / (x * (3 * x - 2 * p));
+            x -= dx;
+            if (Math.abs(dx) <= 1e-6 * x) {
+                break;
+            }
+        }
+        double s = Math.min(hi, Math.max(lo, x - b));
+        for (int i = 0; i < 100; i++) {
+            double phi = s - s0 - gain * stretch(s);
+            if (phi < 0) {
+                lo = s;
+            } else {
+                hi = s;
+            }
+            double slope = 1 - gain * stretchSlope(s);
+            double next = s - phi / slope;
+            if (!(next > lo && next < hi)) {
+                next = 0.5 * (lo + hi);
+            }
+            if (Math.abs(next - s) <= 1e-11 * (1 + Math.abs(next)) || hi - lo <= 1e-11 * (1 + Math.abs(hi))) {
+                return next;
+            }
+            s = next;
+        }
+        return s;
+    }
+
+    private double stretch(double s) {
+        return disc ? MembraneFunctions.discStretch(s) : MembraneFunctions.stripStretch(s);
+    }
+
+    private double stretchSlope(double s) {
+        return disc ? MembraneFunctions.discStretchSlope(s) : MembraneFunctions.stripStretchSlope(s);
     }
 
     /** Allowed tensile edge stress σ_f / SF [Pa] (+∞ if the strength is not given). */
@@ -285,7 +325,7 @@ public final class CapStructure {
         return flexuralRigidityNm;
     }
 
-    /** Small-deflection plate coefficients used for this span. */
+    /** Small-deflection plate coefficients of this span's shape (Roark for a rectangle; reference only). */
     public PlateCoefficients plateCoefficients() {
         return plate;
     }
@@ -310,7 +350,4 @@ public final class CapStructure {
         return limits;
     }
 
-    public boolean tensionStiffening() {
-        return tensionStiffening;
-    }
 }

@@ -38,7 +38,7 @@ final class Binding {
                     double[] m = {
                             chamber,
                             ratio(bake.limits().maxPressurePa(), row[c.column("excess_pressure_Pa")]),
-                            cap == null ? Double.POSITIVE_INFINITY : ratio(cap.allowedStressPa(), row[c.column("edge_stress_Pa")]),
+                            cap == null ? Double.POSITIVE_INFINITY : ratio(cap.allowedStressPa(), row[c.column("cap_stress_Pa")]),
                             cap == null ? Double.POSITIVE_INFINITY : ratio(cap.allowedCrackingJPerM2(), row[c.column("crack_release_J_m2")]),
                             cap == null ? Double.POSITIVE_INFINITY : ratio(cap.allowedDelaminationJPerM2(), row[c.column("delamination_release_J_m2")]),
                             cap == null ? Double.POSITIVE_INFINITY : ratio(cap.bucklingStressPa(), row[c.column("compression_Pa")]),

@@ -91,6 +91,7 @@ final class BakeModel {
     final int oCrack;
     final int oDelam;
     final int oCompression;
+    final int oCentreStress;
     /** Chamber columns: load [sccm], total ppm, ppm per product, moles in chamber, exhausted, evolved; −1 without. */
     final int oLoad;
     final int oPpm;
@@ -197,9 +198,10 @@ final class BakeModel {
             oCrack = oFilmStress + 5;
             oDelam = oFilmStress + 6;
             oCompression = oFilmStress + 7;
-            next = oFilmStress + 8;
+            oCentreStress = oFilmStress + 8;
+            next = oFilmStress + 12;
         } else {
-            oFilmStress = oEdgeStress = oDeflection = oCrack = oDelam = oCompression = -1;
+            oFilmStress = oEdgeStress = oDeflection = oCrack = oDelam = oCompression = oCentreStress = -1;
             next = oVented + 1;
         }
         if (iChamber >= 0) {
@@ -243,7 +245,8 @@ final class BakeModel {
         out.add("vented_mol_m2");
         if (structure != null) {
             out.addAll(List.of("film_stress_Pa", "bending_stress_Pa", "membrane_stress_Pa", "edge_stress_Pa",
-                    "deflection_m", "crack_release_J_m2", "delamination_release_J_m2", "compression_Pa"));
+                    "deflection_m", "crack_release_J_m2", "delamination_release_J_m2", "compression_Pa",
+                    "centre_stress_Pa", "cap_stress_Pa", "bonded_crack_release_J_m2", "span_crack_release_J_m2"));
         }
         if (iChamber >= 0) {
             out.add("chamber_load_sccm");
@@ -444,6 +447,10 @@ final class BakeModel {
             out[oCrack] = r.channelCrackingJPerM2();
             out[oDelam] = r.delaminationJPerM2();
             out[oCompression] = r.bucklingCompressionPa();
+            out[oCentreStress] = r.centreStressPa();
+            out[oCentreStress + 1] = r.maxStressPa();
+            out[oCentreStress + 2] = r.bondedCrackJPerM2();
+            out[oCentreStress + 3] = r.spanCrackJPerM2();
         }
         if (iChamber >= 0) {
             double load = 0;

@@ -92,7 +92,7 @@ final class CornerRun {
         java.util.List<Integer> t = new java.util.ArrayList<>(java.util.List.of(
                 model.oSetpoint, model.oWafer, model.oPressure, model.oRelax, model.oStored));
         if (model.structure() != null) {
-            t.addAll(java.util.List.of(model.oEdgeStress, model.oDeflection, model.oCrack, model.oDelam, model.oCompression));
+            t.addAll(java.util.List.of(model.oCentreStress + 1, model.oDeflection, model.oCrack, model.oDelam, model.oCompression));
         }
         if (model.oLoad >= 0) {
             t.addAll(java.util.List.of(model.oLoad, model.oPpm));

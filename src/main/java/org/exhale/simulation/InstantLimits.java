@@ -79,7 +79,7 @@ public final class InstantLimits {
         }
         if (structure != null) {
             CapResponse r = structure.evaluate(temperatureK, dp);
-            m = Math.min(m, ratio(structure.allowedStressPa(), r.edgeStressPa()));
+            m = Math.min(m, ratio(structure.allowedStressPa(), r.maxStressPa()));
             m = Math.min(m, ratio(structure.allowedCrackingJPerM2(), r.channelCrackingJPerM2()));
             m = Math.min(m, ratio(structure.allowedDelaminationJPerM2(), r.delaminationJPerM2()));
             m = Math.min(m, ratio(structure.bucklingStressPa(), r.bucklingCompressionPa()));
@@ -114,7 +114,7 @@ public final class InstantLimits {
         }
         if (structure != null) {
             CapResponse r = structure.evaluate(temperatureK, dp);
-            m = Math.min(m, ratio(structure.allowedStressPa(), r.edgeStressPa()));
+            m = Math.min(m, ratio(structure.allowedStressPa(), r.maxStressPa()));
             m = Math.min(m, ratio(structure.allowedCrackingJPerM2(), r.channelCrackingJPerM2()));
             m = Math.min(m, ratio(structure.bucklingStressPa(), r.bucklingCompressionPa()));
             m = Math.min(m, ratio(structure.maxDeflectionM(), Math.abs(r.deflectionM())));

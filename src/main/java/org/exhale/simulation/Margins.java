@@ -74,7 +74,7 @@ final class Margins {
         }
         CapStructure cap = bake.capStructure();
         if (cap != null) {
-            mechanical(out, corners, "strength", cap.allowedStressPa(), "edge_stress_Pa", "Pa");
+            mechanical(out, corners, "strength", cap.allowedStressPa(), "cap_stress_Pa", "Pa");
             mechanical(out, corners, "cracking", cap.allowedCrackingJPerM2(), "crack_release_J_m2", "J/m2");
             mechanical(out, corners, "delamination", cap.allowedDelaminationJPerM2(), "delamination_release_J_m2",
                     "J/m2");
@@ -104,6 +104,11 @@ final class Margins {
             double b = Math.abs(row[f + 1]);
             double m = Math.abs(row[f + 2]);
             detail = th >= b && th >= m ? "thermal" : b >= m ? "bending" : "membrane";
+            if (limit.equals("cracking")) {
+                int span = worst.column("span_crack_release_J_m2");
+                int bonded = worst.column("bonded_crack_release_J_m2");
+                detail = (row[span] > row[bonded] ? "free-span crack" : "bonded crack") + " (" + detail + ")";
+            }
         } else if (limit.equals("buckling")) {
             detail = "thermal";
         }

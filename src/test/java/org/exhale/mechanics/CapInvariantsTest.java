@@ -44,17 +44,17 @@ class CapInvariantsTest {
             FilmProperties f = FilmProperties.elastic(1e9 + 200e9 * random.nextDouble(), 0.4 * random.nextDouble(),
                     1e-5 * random.nextDouble(), 400 + 400 * random.nextDouble(), 4e8 * (random.nextDouble() - 0.5));
             CapStructure c = new CapStructure(f, h, span, CapStructure.SILICON_CTE_PER_K,
-                    MechanicalLimits.withSafetyFactor(1), random.nextBoolean());
+                    MechanicalLimits.withSafetyFactor(1));
             double t = 300 + 500 * random.nextDouble();
             double p1 = Math.pow(10, 7 * random.nextDouble());
             double p2 = p1 * (1 + random.nextDouble());
             double sign = random.nextBoolean() ? 1 : -1;
-            double s1 = c.evaluate(t, sign * p1).edgeStressPa();
-            double s2 = c.evaluate(t, sign * p2).edgeStressPa();
+            double s1 = c.evaluate(t, sign * p1).maxStressPa();
+            double s2 = c.evaluate(t, sign * p2).maxStressPa();
             String where = "seed " + SEED + ", trial " + trial + ": " + span + ", p " + sign * p1 + " -> " + sign * p2;
-            assertTrue(s2 >= s1, where + ": edge stress fell from " + s1 + " to " + s2);
-            assertTrue(s1 >= c.thermalStressPa(t), where + ": pressure lowered the edge stress");
-            assertEquals(c.evaluate(t, sign * p1).edgeStressPa(), c.edgeStressPa(t, sign * p1), 0, where);
+            assertTrue(s2 >= s1 * (1 - 1e-9), where + ": edge stress fell from " + s1 + " to " + s2);
+            assertTrue(s1 >= c.thermalStressPa(t) - 1e-6 * Math.abs(c.thermalStressPa(t)), where + ": pressure lowered the edge stress");
+            assertEquals(c.evaluate(t, sign * p1).maxStressPa(), c.edgeStressPa(t, sign * p1), 0, where);
         }
     }
 
@@ -86,10 +86,14 @@ class CapInvariantsTest {
         CapResponse bent = thick.evaluate(500, 10e6);
         assertEquals(EdgeTerm.BENDING, bent.dominantTerm());
         assertTrue(bent.bendingStressPa() > bent.membraneStressPa() && bent.bendingStressPa() > 100e6);
-        // thin cap, large pressure, no pre-stress: stretching dominates
+        // thin cap, large pressure, no pre-stress: the membrane carries the load, yet the clamped-edge boundary
+        // layer keeps an edge bending stress of √18 ≈ 4.24 times the membrane stress (derived, no published source:
+        // M_e ≈ q a/k, membrane equilibrium q a = N φ_e, and σ = Ē φ_e²/6 for the parabolic membrane)
         CapStructure thin = new CapStructure(f.withIntrinsicStress(0), 20e-9, SpanGeometry.line(20e-6),
                 CapStructure.SILICON_CTE_PER_K, MechanicalLimits.withSafetyFactor(1));
-        assertEquals(EdgeTerm.MEMBRANE, thin.evaluate(500, 1e6).dominantTerm());
+        CapResponse membrane = thin.evaluate(500, 1e6);
+        assertEquals(EdgeTerm.BENDING, membrane.dominantTerm());
+        assertEquals(Math.sqrt(18), membrane.bendingStressPa() / membrane.membraneStressPa(), 0.05 * Math.sqrt(18));
     }
 
     @Test
