@@ -952,6 +952,12 @@ public final class Planner {
             default -> "relax the '" + limit + "' limit";
         };
         double atStart = new InstantLimits(bake).margin(startK, initialAlpha());
+        if (atStart < 1 && List.of("strength", "cracking", "delamination", "buckling").contains(limit)) {
+            // nothing has decomposed yet: the cap's own stress (intrinsic and thermal mismatch) is the cause
+            suggestion = "the cap's own stress (intrinsic plus thermal mismatch) already fails the '" + limit
+                    + "' limit before any gas: a cap with less intrinsic or mismatch stress, a stronger or tougher film, "
+                    + "a narrower span, or a lower safety factor";
+        }
         String reason = atStart < 1 ? "the '" + limit + "' limit fails already at the start temperature"
                 : "no recipe tried keeps the '" + limit + "' limit (best margin " + String.format(java.util.Locale.ROOT, "%.3g", best.minMargin) + ")";
         return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,

@@ -91,4 +91,16 @@ class PlannerOptimalityTest {
         assertTrue(p.rideRatio() <= 1.03, "plan/ride " + p.rideRatio());
         assertTrue(p.rideS() >= p.lowerBound().boundS(), "ride " + p.rideS() + " s beats the bound " + p.lowerBound().boundS());
     }
+
+    /** A cap whose own stress fails a limit before any gas gets advice about the cap's stress, not the pressure. */
+    @Test
+    void capStressFailingAtTheStartIsAdvisedAsSuch() throws Exception {
+        String text = java.nio.file.Files.readString(Path.of("data/bench/dense-one.yaml"))
+                .replace("intrinsic_stress: 40 MPa", "intrinsic_stress: 100 MPa");
+        CaseFile cf = CaseYamlReader.parse("stressed.yaml", text.getBytes(java.nio.charset.StandardCharsets.UTF_8));
+        PlanResult p = Planner.plan(cf.bake(), cf.tool());
+        assertTrue(!p.feasible(), "a cap that fails before any gas cannot be planned");
+        assertTrue(p.infeasibility().suggestion().contains("own stress"), p.infeasibility().suggestion());
+        assertTrue(!p.infeasibility().suggestion().contains("trapped pressure"), p.infeasibility().suggestion());
+    }
 }
