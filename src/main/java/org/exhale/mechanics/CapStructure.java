@@ -263,18 +263,28 @@ public final class CapStructure {
         }
         double s = Math.min(hi, Math.max(lo, x - b));
         for (int i = 0; i < 100; i++) {
-            double phi = s - s0 - gain * stretch(s);
+            double f;
+            double fp;
+            if (disc && Math.abs(s) > MembraneFunctions.SERIES_LIMIT) {
+                double r = MembraneFunctions.ratioR(s);          // one Bessel ratio for both
+                f = MembraneFunctions.discStretch(s, r);
+                fp = MembraneFunctions.discStretchSlope(s, r);
+            } else {
+                f = stretch(s);
+                fp = stretchSlope(s);
+            }
+            double phi = s - s0 - gain * f;
             if (phi < 0) {
                 lo = s;
             } else {
                 hi = s;
             }
-            double slope = 1 - gain * stretchSlope(s);
+            double slope = 1 - gain * fp;
             double next = s - phi / slope;
             if (!(next > lo && next < hi)) {
                 next = 0.5 * (lo + hi);
             }
-            if (Math.abs(next - s) <= 1e-11 * (1 + Math.abs(next)) || hi - lo <= 1e-11 * (1 + Math.abs(hi))) {
+            if (Math.abs(next - s) <= 1e-10 * (1 + Math.abs(next)) || hi - lo <= 1e-10 * (1 + Math.abs(hi))) {
                 return next;
             }
             s = next;
