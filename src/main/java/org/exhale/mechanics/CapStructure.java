@@ -177,9 +177,26 @@ public final class CapStructure {
             mCentre = 0;
             ratioSquare = 0;
         } else if (disc) {
-            delta = h * q * MembraneFunctions.discDeflection(s);
-            mEdge = q * Math.abs(MembraneFunctions.discEdge(s));
-            mCentre = q * (1 + film.poisson()) * Math.abs(MembraneFunctions.discCentre(s));
+            double dD;
+            double dE;
+            double dC;
+            if (Math.abs(s) > MembraneFunctions.SERIES_LIMIT
+                    && s < MembraneFunctions.BESSEL_SERIES_LIMIT_U * MembraneFunctions.BESSEL_SERIES_LIMIT_U) {
+                // the same closed forms as MembraneFunctions, sharing one pair of Bessel series
+                double t = s / 4;
+                double sa = MembraneFunctions.seriesA(t);
+                double sb = MembraneFunctions.seriesB(t);
+                dE = (2 * sa / sb - 2) / (2 * s);
+                dC = (1 / sb - 1) / (2 * s);
+                dD = (0.5 - 2 * (sa - 1) / (s * sb)) / (2 * s);
+            } else {
+                dD = MembraneFunctions.discDeflection(s);
+                dE = MembraneFunctions.discEdge(s);
+                dC = MembraneFunctions.discCentre(s);
+            }
+            delta = h * q * dD;
+            mEdge = q * Math.abs(dE);
+            mCentre = q * (1 + film.poisson()) * Math.abs(dC);
             double fe = MembraneFunctions.stripEdge(s);
             ratioSquare = s > MembraneFunctions.STRIP_BUCKLING_S
                     ? MembraneFunctions.stripBendingEnergy(s) / (2 * fe * fe) : 1;

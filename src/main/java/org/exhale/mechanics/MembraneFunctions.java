@@ -41,7 +41,7 @@ final class MembraneFunctions {
     static final double DISC_BUCKLING_S = -CapStructure.BESSEL_J1_FIRST_ZERO_EXACT * CapStructure.BESSEL_J1_FIRST_ZERO_EXACT;
 
     private static final int TERMS = 26;
-    private static final double BESSEL_SERIES_LIMIT_U = 12;
+    static final double BESSEL_SERIES_LIMIT_U = 12;
 
     /** 1/k² and 1/(k(k+1)) for the Bessel series, k = 0..79. */
     private static final double[] INV_KK = new double[80];
@@ -275,7 +275,7 @@ final class MembraneFunctions {
     }
 
     /** I₀ = Σ t^k/(k!)², t = u²/4. */
-    private static double seriesA(double t) {
+    static double seriesA(double t) {
         double term = 1;
         double sum = 1;
         for (int k = 1; k < INV_KK.length; k++) {
@@ -289,7 +289,7 @@ final class MembraneFunctions {
     }
 
     /** 2 I₁(u)/u = Σ t^k/(k!(k+1)!). */
-    private static double seriesB(double t) {
+    static double seriesB(double t) {
         double term = 1;
         double sum = 1;
         for (int k = 1; k < INV_KK1.length; k++) {
