@@ -177,9 +177,26 @@ public final class CapStructure {
             mCentre = 0;
             ratioSquare = 0;
         } else if (disc) {
-            delta = h * q * MembraneFunctions.discDeflection(s);
-            mEdge = q * Math.abs(MembraneFunctions.discEdge(s));
-            mCentre = q * (1 + film.poisson()) * Math.abs(MembraneFunctions.discCentre(s));
+            double dD;
+            double dE;
+            double dC;
+            if (Math.abs(s) > MembraneFunctions.SERIES_LIMIT
+                    && s < MembraneFunctions.BESSEL_SERIES_LIMIT_U * MembraneFunctions.BESSEL_SERIES_LIMIT_U) {
+                // the same closed forms as MembraneFunctions, sharing one pair of Bessel series
+                double t = s / 4;
+                double sa = MembraneFunctions.seriesA(t);
+                double sb = MembraneFunctions.seriesB(t);
+                dE = (2 * sa / sb - 2) / (2 * s);
+                dC = (1 / sb - 1) / (2 * s);
+                dD = (0.5 - 2 * (sa - 1) / (s * sb)) / (2 * s);
+            } else {
+                dD = MembraneFunctions.discDeflection(s);
+                dE = MembraneFunctions.discEdge(s);
+                dC = MembraneFunctions.discCentre(s);
+            }
+            delta = h * q * dD;
+            mEdge = q * Math.abs(dE);
+            mCentre = q * (1 + film.poisson()) * Math.abs(dC);
             double fe = MembraneFunctions.stripEdge(s);
             ratioSquare = s > MembraneFunctions.STRIP_BUCKLING_S
                     ? MembraneFunctions.stripBendingEnergy(s) / (2 * fe * fe) : 1;
@@ -263,18 +280,28 @@ public final class CapStructure {
         }
         double s = Math.min(hi, Math.max(lo, x - b));
         for (int i = 0; i < 100; i++) {
-            double phi = s - s0 - gain * stretch(s);
+            double f;
+            double fp;
+            if (disc && Math.abs(s) > MembraneFunctions.SERIES_LIMIT) {
+                double r = MembraneFunctions.ratioR(s);          // one Bessel ratio for both
+                f = MembraneFunctions.discStretch(s, r);
+                fp = MembraneFunctions.discStretchSlope(s, r);
+            } else {
+                f = stretch(s);
+                fp = stretchSlope(s);
+            }
+            double phi = s - s0 - gain * f;
             if (phi < 0) {
                 lo = s;
             } else {
                 hi = s;
             }
-            double slope = 1 - gain * stretchSlope(s);
+            double slope = 1 - gain * fp;
             double next = s - phi / slope;
             if (!(next > lo && next < hi)) {
                 next = 0.5 * (lo + hi);
             }
-            if (Math.abs(next - s) <= 1e-11 * (1 + Math.abs(next)) || hi - lo <= 1e-11 * (1 + Math.abs(hi))) {
+            if (Math.abs(next - s) <= 1e-10 * (1 + Math.abs(next)) || hi - lo <= 1e-10 * (1 + Math.abs(hi))) {
                 return next;
             }
             s = next;

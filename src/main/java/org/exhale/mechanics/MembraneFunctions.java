@@ -41,8 +41,11 @@ final class MembraneFunctions {
     static final double DISC_BUCKLING_S = -CapStructure.BESSEL_J1_FIRST_ZERO_EXACT * CapStructure.BESSEL_J1_FIRST_ZERO_EXACT;
 
     private static final int TERMS = 26;
-    private static final double BESSEL_SERIES_LIMIT_U = 12;
+    static final double BESSEL_SERIES_LIMIT_U = 12;
 
+    /** 1/k² and 1/(k(k+1)) for the Bessel series, k = 0..79. */
+    private static final double[] INV_KK = new double[80];
+    private static final double[] INV_KK1 = new double[80];
     private static final double[] FE;
     private static final double[] FC;
     private static final double[] FD;
@@ -54,6 +57,10 @@ final class MembraneFunctions {
     private static final double[] DH;
 
     static {
+        for (int k = 1; k < INV_KK.length; k++) {
+            INV_KK[k] = 1.0 / ((double) k * k);
+            INV_KK1[k] = 1.0 / ((double) k * (k + 1));
+        }
         int n = TERMS + 6;
         double[] sh = new double[n];   // sinh(u)/u
         double[] ch = new double[n];   // cosh(u)
@@ -218,7 +225,16 @@ final class MembraneFunctions {
         if (Math.abs(s) <= SERIES_LIMIT) {
             return polySlope(DH, s);
         }
-        double r = ratioR(s);
+        return discStretchSlope(s, ratioR(s));
+    }
+
+    /** dH from a given R(s), |s| above {@value #SERIES_LIMIT}. */
+    static double discStretch(double s, double r) {
+        return (0.75 + (4 - r - r * r / 2) / s) / (4 * s * s);
+    }
+
+    /** dH/ds from a given R(s), |s| above {@value #SERIES_LIMIT}. */
+    static double discStretchSlope(double s, double r) {
         double rp = (2 * r + s - r * r) / (2 * s);
         double g = 4 - r - r * r / 2;
         double num = 0.75 + g / s;
@@ -259,11 +275,11 @@ final class MembraneFunctions {
     }
 
     /** I₀ = Σ t^k/(k!)², t = u²/4. */
-    private static double seriesA(double t) {
+    static double seriesA(double t) {
         double term = 1;
         double sum = 1;
-        for (int k = 1; k < 60; k++) {
-            term *= t / ((double) k * k);
+        for (int k = 1; k < INV_KK.length; k++) {
+            term *= t * INV_KK[k];
             sum += term;
             if (Math.abs(term) < 1e-17 * Math.abs(sum)) {
                 break;
@@ -273,11 +289,11 @@ final class MembraneFunctions {
     }
 
     /** 2 I₁(u)/u = Σ t^k/(k!(k+1)!). */
-    private static double seriesB(double t) {
+    static double seriesB(double t) {
         double term = 1;
         double sum = 1;
-        for (int k = 1; k < 60; k++) {
-            term *= t / ((double) k * (k + 1));
+        for (int k = 1; k < INV_KK1.length; k++) {
+            term *= t * INV_KK1[k];
             sum += term;
             if (Math.abs(term) < 1e-17 * Math.abs(sum)) {
                 break;
