@@ -267,8 +267,8 @@ public final class Planner {
             return null;
         }
         rideS = ride.timeToTargetS();
-        notes.add("closed-loop ride (" + regime.name().toLowerCase(java.util.Locale.ROOT).replace('_', ' ')
-                + " gas, every corner, " + String.format(java.util.Locale.ROOT, "%.0f s", control) + " control interval): "
+        notes.add("closed-loop ride (" + (regime == GasRegime.FULL_GAS ? "full gas equations" : "quasi-steady gas")
+                + ", every corner, " + String.format(java.util.Locale.ROOT, "%.0f s", control) + " control interval): "
                 + minutes(rideS) + (ride.admissibleThroughout() ? "" : ", though not admissible throughout"));
         int ramps = Math.max(1, tool.maxSteps() - 1 - (tool.hasUnload() ? 1 : 0));
         // knots along the ride; ramps whose end the setpoint grid rounded down made as short as admissible, or

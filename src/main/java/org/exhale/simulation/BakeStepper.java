@@ -195,22 +195,7 @@ public final class BakeStepper {
         } else {
             DormandPrince853Integrator ei = s.explicit[c];
             ei.clearStepHandlers();
-            ei.addStepHandler(interpolator -> observeStep(model, new StepView() {
-                @Override
-                public double start() {
-                    return interpolator.getPreviousState().getTime();
-                }
-
-                @Override
-                public double end() {
-                    return interpolator.getCurrentState().getTime();
-                }
-
-                @Override
-                public void state(double t, double[] out) {
-                    System.arraycopy(interpolator.getInterpolatedState(t).getPrimaryState(), 0, out, 0, out.length);
-                }
-            }, result));
+            ei.addStepHandler(interpolator -> observeStep(model, new HipparchusStep(interpolator), result));
             OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
                 @Override
                 public int getDimension() {

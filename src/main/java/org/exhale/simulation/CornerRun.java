@@ -439,29 +439,4 @@ final class CornerRun {
         model.observe(t, scratchState, scratchObs);
         return scratchObs[col];
     }
-
-    /** Adapter from a Hipparchus step interpolator. */
-    private static final class HipparchusStep implements StepView {
-        private final ODEStateInterpolator interpolator;
-
-        HipparchusStep(ODEStateInterpolator interpolator) {
-            this.interpolator = interpolator;
-        }
-
-        @Override
-        public double start() {
-            return interpolator.getPreviousState().getTime();
-        }
-
-        @Override
-        public double end() {
-            return interpolator.getCurrentState().getTime();
-        }
-
-        @Override
-        public void state(double t, double[] out) {
-            double[] s = interpolator.getInterpolatedState(t).getPrimaryState();
-            System.arraycopy(s, 0, out, 0, out.length);
-        }
-    }
 }
