@@ -71,7 +71,7 @@ final class CheckCommand implements Callable<Integer> {
         out.println();
         printDiagnosis(out, d, cf);
         out.println();
-        Cautions.BAKE.forEach(c -> out.println("Caution: " + c));
+        out.println(Cautions.terminal(cf.bake().chamber() != null));
         out.flush();
         return Main.OK;
     }

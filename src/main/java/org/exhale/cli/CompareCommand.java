@@ -112,7 +112,7 @@ final class CompareCommand implements Callable<Integer> {
             System.out.print(s.text);
             cf.warnings().forEach(w -> System.out.println("Warning: " + w));
             System.out.println("Wrote " + dir + " (options.csv, compare.json, recipes/)");
-            Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+            System.out.println(Cautions.terminal(cf.bake().chamber() != null));
         }
         return s.anyFeasible ? Main.OK : Main.INFEASIBLE;
     }

@@ -170,7 +170,7 @@ final class RobustCommand implements Callable<Integer> {
             System.out.print(result);
             cf.warnings().forEach(w -> System.out.println("Warning: " + w));
             System.out.println("Wrote " + dir + " (samples.csv, robust.json, recipe.yaml, recipe.csv)");
-            Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+            System.out.println(Cautions.terminal(cf.bake().chamber() != null));
         }
         return code;
     }
