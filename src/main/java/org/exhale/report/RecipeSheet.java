@@ -138,6 +138,21 @@ public final class RecipeSheet {
      * The smallest margin among the limits the recipe can change (worst value after t = 0), and a
      * note when a limit set by the starting state is smaller; the ceiling is given as headroom.
      */
+    /** The name of the tightest limit (the recipe can change it), or null. */
+    static String tightestName(JsonNode margins) {
+        String name = null;
+        double min = Double.POSITIVE_INFINITY;
+        for (Iterator<Map.Entry<String, JsonNode>> it = margins.fields(); it.hasNext(); ) {
+            Map.Entry<String, JsonNode> e = it.next();
+            JsonNode m = e.getValue().path("margin");
+            if (m.isNumber() && e.getValue().path("time_s").asDouble(1) > 1e-6 && m.asDouble() < min) {
+                min = m.asDouble();
+                name = e.getKey();
+            }
+        }
+        return name;
+    }
+
     static String tightest(JsonNode margins) {
         String name = null;
         double min = Double.POSITIVE_INFINITY;
