@@ -39,12 +39,12 @@ import picocli.CommandLine.Spec;
 @Command(name = "fit", mixinStandardHelpOptions = true,
         header = "Fit decomposition kinetics to thermogravimetric runs at several heating rates.",
         description = {
-            "Reads TGA runs (CSV: time, sample temperature, mass; one file per run or a 'run' column),",
-            "converts mass to conversion, measures each run's real heating rate, computes E(alpha) by",
-            "Friedman, KAS, Ozawa-Flynn-Wall, Starink and Vyazovkin with confidence intervals, Kissinger's",
-            "peak E and A, and fits 1 to 3 parallel components to all runs at once along their measured",
-            "temperature. Writes kinetics.yaml (a polymer components block for a case file),",
-            "isoconversional.csv, fit.csv and fit.json to the output folder."},
+            "Reads TGA runs (CSV: time, sample temperature, mass; one file per run or a 'run' column), "
+            + "converts mass to conversion, measures each run's real heating rate, computes E(alpha) by "
+            + "Friedman, KAS, Ozawa-Flynn-Wall, Starink and Vyazovkin with confidence intervals, Kissinger's "
+            + "peak E and A, and fits 1 to 3 parallel components to all runs at once along their measured "
+            + "temperature. Writes kinetics.yaml (a polymer components block for a case file), "
+            + "isoconversional.csv, fit.csv and fit.json to the output folder."},
         footer = {"", "Exit codes: 0 success, 2 bad input (the message names file, row and column)."})
 public final class FitCommand implements Callable<Integer> {
 
@@ -70,7 +70,7 @@ public final class FitCommand implements Callable<Integer> {
     String range;
 
     @Option(names = "--residue", paramLabel = "FRACTION",
-            description = "Final mass as a share of the initial mass, e.g. '2 %'; default: each run's final plateau.")
+            description = "Final mass as a share of the initial mass, e.g. '2 %%'; default: each run's final plateau.")
     String residue;
 
     @Option(names = "--molar-mass", paramLabel = "M", defaultValue = "100 g/mol",

@@ -87,7 +87,7 @@ final class PlanCommand implements Callable<Integer> {
             if (sheet != null) {
                 // the sheet without its signature line and closing caution (printed once below)
                 System.out.print(sheet.replaceFirst("Date: _+ +Approved by: _+\n\n", "\n")
-                        .replaceFirst("\nCaution: .*\n$", ""));
+                        .replaceFirst("(?s)\nCaution: .*$", ""));
                 System.out.print(TextSummary.limits(plan.verification().margins(), false));
                 System.out.printf(Locale.ROOT, "Planning: %d simulations, %.2f s%n", plan.evaluations(), seconds);
             } else {

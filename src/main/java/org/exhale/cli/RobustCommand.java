@@ -240,10 +240,10 @@ final class RobustCommand implements Callable<Integer> {
         m.put("notes", List.of(
                 "each value is normal around the case's value with the given standard deviation, truncated to its physical "
                         + "range by redrawing; a component's Ea and ln A are drawn as a correlated pair",
-                "sample i draws each value from its own SplittableRandom stream seeded from (seed, i, value), so results "
-                        + "do not depend on the number of threads",
-                "slack = ln(allowed/actual) puts every limit on one scale (the ceiling on absolute temperature); the "
-                        + "smallest margin of a sample is its smallest slack",
+                "sample i draws each value from its own random stream, seeded from the seed, i and the value, so "
+                        + "results do not depend on the number of threads",
+                "a margin is allowed/actual (1 or more holds); the smallest margin of a sample is its smallest ratio "
+                        + "margin, the tightest limit; the ceiling is followed on its own as headroom in K",
                 "rank correlations below about " + Numbers.sig(2 / Math.sqrt(Math.max(1, sum.n() - 1)), 2)
                         + " in size (2/sqrt(n-1)) are not distinguishable from none"));
         m.put("warnings", cf.warnings());

@@ -221,7 +221,7 @@ public final class RecipeSheet {
         for (Map.Entry<String, String> e : f.entrySet()) {
             b.append(wrap(String.format(Locale.ROOT, "%-" + (lw + 1) + "s %s", e.getKey() + ":", e.getValue()), lw + 2, WIDTH));
         }
-        b.append("\nCaution: ").append(Cautions.BAKE.get(0)).append('\n');
+        b.append('\n').append(wrap("Caution: " + Cautions.BAKE.get(0), 9, WIDTH));
         return b.toString();
     }
 
