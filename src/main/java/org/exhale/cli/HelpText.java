@@ -21,17 +21,17 @@ final class HelpText {
 
     static {
         EXAMPLES.put("exhale", List.of(
-                "exhale new line -o my-line.yaml        a commented case to start from",
-                "exhale check my-line.yaml              the case as understood, with derived figures",
-                "exhale plan my-line.yaml --report      the shortest safe recipe, its sheet and report"));
+                "exhale new line -o my-line.yaml      a commented case to start from",
+                "exhale check my-line.yaml            the case as understood",
+                "exhale plan my-line.yaml --report    the shortest safe recipe and its report"));
         EXAMPLES.put("check", List.of(
                 "exhale check data/demo/porous-line.yaml",
-                "exhale check data/demo/dense-disc.yaml --no-values     derived figures only"));
+                "exhale check data/demo/dense-disc.yaml --no-values   derived figures only"));
         EXAMPLES.put("simulate", List.of(
                 "exhale simulate data/demo/porous-line.yaml",
                 "exhale simulate data/demo/porous-line.yaml -o out/line --sample 10s --report"));
         EXAMPLES.put("plan", List.of(
-                "exhale plan data/demo/porous-line.yaml --report     then print out/porous-line-plan/recipe.txt",
+                "exhale plan data/demo/porous-line.yaml --report   then print its recipe.txt",
                 "exhale plan data/demo/dense-disc.yaml -o out/disc-plan"));
         EXAMPLES.put("compare", List.of(
                 "exhale compare data/demo/porous-line.yaml --vary cap.porosity=0.2:0.4:0.1",
@@ -45,7 +45,7 @@ final class HelpText {
         EXAMPLES.put("report", List.of(
                 "exhale report out/porous-line-plan",
                 "exhale report out/fit -o fit-report.html"));
-        EXAMPLES.put("demo", List.of("exhale demo                             writes out/demo/<case>/report.html"));
+        EXAMPLES.put("demo", List.of("exhale demo        writes out/demo/<case>/report.html"));
         EXAMPLES.put("bench", List.of("exhale bench --repeats 10 --plan-repeats 3"));
         EXAMPLES.put("schema", List.of("exhale schema -o case-file.schema.json"));
         EXAMPLES.put("completion", List.of("source <(exhale completion)"));
