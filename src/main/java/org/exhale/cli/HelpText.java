@@ -38,7 +38,7 @@ final class HelpText {
                 "exhale compare data/demo/porous-line.yaml --vary cap.pore_radius=1nm,2nm"));
         EXAMPLES.put("robust", List.of(
                 "exhale robust data/demo/porous-line-uncertain.yaml --samples 200",
-                "exhale robust data/demo/porous-line-uncertain.yaml --samples 100 --plan --quantile 0.9"));
+                "exhale robust data/demo/porous-line-uncertain.yaml --samples 100 --plan"));
         EXAMPLES.put("fit", List.of(
                 "exhale fit data/demo/tga/*.csv -o out/fit",
                 "exhale fit data/demo/tga/*.csv --components 2 --model sestak-berggren"));
