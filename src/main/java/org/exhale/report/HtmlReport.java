@@ -41,13 +41,13 @@ final class HtmlReport {
             figure svg{display:block;width:100%;height:auto}
             figcaption{color:var(--muted);font-size:.92rem;margin-top:6px}
             figcaption a{color:var(--accent)}
-            .wide{overflow-x:auto} td.why{min-width:28em}
+            .wide{overflow-x:auto} td.why{min-width:16em}
             pre{background:var(--band);padding:10px;overflow:auto;font-size:.85rem}
             nav a{color:var(--accent);margin-right:14px}
             .sheet{border:2px solid var(--accent);padding:2px 18px 8px;margin:10px 0 24px}
             .sheet h2{margin-top:14px}
             table.figures th{width:14em}
-            table{max-width:100%}
+
             footer{color:var(--muted);font-size:.85rem;margin-top:40px}
             @media print{figure{break-inside:avoid}}
             """;
@@ -85,6 +85,13 @@ final class HtmlReport {
             f.plan().ifPresent(this::planOutcome);
         }
         f.summary().ifPresent(this::glance);
+        f.compare().ifPresent(c -> {
+            if (c.path("best").isTextual() && !c.path("best").asText().isBlank()) {
+                boolean none = c.path("best").asText().startsWith("No option");
+                b.append(none ? "<p class=\"verdict bad\">" : "<p class=\"verdict ok\">").append(escape(c.path("best").asText()))
+                        .append("</p>\n");
+            }
+        });
         if (!figures.isEmpty()) {
             b.append("<h2 id=\"charts\">Charts</h2>\n");
             for (Figure fig : figures) {
@@ -518,18 +525,19 @@ final class HtmlReport {
         b.append("<h2 id=\"compare\">Options compared</h2>\n");
         JsonNode c = f.compare().orElse(null);
         CompareCharts.CompareData d = CompareCharts.data(f);
-        if (c != null && c.path("best").isTextual() && !c.path("best").asText().isBlank()) {
-            b.append("<p class=\"verdict ok\">").append(escape(c.path("best").asText())).append("</p>\n");
-        }
         if (!d.isEmpty()) {
             long feasible = d.options().stream().filter(CompareCharts.Option::feasible).count();
             long front = d.options().stream().filter(CompareCharts.Option::pareto).count();
             if (feasible == 0) {
                 b.append("<p class=\"verdict bad\">✗ No option is feasible</p>\n");
             }
-            b.append("<p>").append(feasible).append(" of ").append(d.options().size()).append(" options are feasible; ")
-                    .append(front).append(" are on the Pareto front of duration against the smallest margin. Varied: ")
-                    .append(escape(String.join(", ", d.labels()))).append(".</p>\n");
+            long points = d.options().stream().filter(CompareCharts.Option::pareto)
+                    .map(o -> Math.round(o.durationS()) + "/" + org.exhale.studies.Compare.resolved(o.smallestMargin()))
+                    .distinct().count();
+            b.append("<p>").append(feasible).append(" of ").append(d.options().size()).append(" options are feasible; the ")
+                    .append("Pareto front of duration against the smallest margin has ").append(points)
+                    .append(points == 1 ? " point" : " points").append(" (").append(front).append(front == 1 ? " option" : " options")
+                    .append("). Varied: ").append(escape(String.join(", ", d.labels()))).append(".</p>\n");
         }
         if (c != null) {
             if (!c.path("complete").asBoolean(true)) {
@@ -537,7 +545,10 @@ final class HtmlReport {
                         .append(" of ").append(escape(c.path("options_total").asText("?")))
                         .append(" options were planned.</p>\n");
             }
-            scalars(c, Set.of("best", "smallest_margin_note"));
+            b.append("<p>").append(escape(c.path("options_done").asText("?") + " of " + c.path("options_total").asText("?")
+                    + " options planned" + (c.path("wall_time_s").isNumber() ? " in " + Readable.time(c.path("wall_time_s").asDouble()) : "")
+                    + (c.path("threads").isNumber() ? " on " + c.path("threads").asText() + " threads" : "")
+                    + (c.path("case").isTextual() ? ", from the case file " + c.path("case").asText() : "") + ".")).append("</p>\n");
             if (c.path("smallest_margin_note").isTextual()) {
                 b.append("<p>Smallest margin: ").append(escape(c.path("smallest_margin_note").asText())).append(".</p>\n");
             }
@@ -548,12 +559,17 @@ final class HtmlReport {
 
     /** Columns of options.csv left out of the page's table (they stay in the file); the reason joins the failing limit. */
     private static final Set<String> OPTION_COLUMNS_LEFT_OUT = Set.of("total_with_cooldown_s", "bound_rigorous", "steps",
-            "infeasible_reason");
+            "infeasible_reason", "lower_bound_s", "peak_pressure_Pa");
 
     private void optionsTable(CsvTable t) {
-        List<String> cols = t.header().stream().filter(h -> !OPTION_COLUMNS_LEFT_OUT.contains(h)).toList();
-        b.append("<h3>Ranked options</h3>\n<p>Ranked by planned duration, infeasible options last; every column is in "
-                + "<code>options.csv</code>.</p>\n<div class=\"wide\"><table>\n<tr>");
+        // the page keeps the columns a reader compares; the per-limit margins and the rest stay in options.csv
+        List<String> cols = t.header().stream().filter(h -> !OPTION_COLUMNS_LEFT_OUT.contains(h) && !h.startsWith("margin_"))
+                .toList();
+        String rule = f.compare().map(c -> c.path("ranking").asText("")).orElse("");
+        b.append("<h3>Ranked options</h3>\n<p>Ranked by ").append(escape(rule.isEmpty()
+                        ? "planned duration, infeasible options last" : rule + "; infeasible options last"))
+                .append(". Every column, with a margin per limit, is in <code>options.csv</code>.</p>\n"
+                        + "<div class=\"wide\"><table>\n<tr>");
         for (String h : cols) {
             b.append("<th>").append(escape(optionHeader(h))).append("</th>");
         }
@@ -586,7 +602,7 @@ final class HtmlReport {
             case "total_with_cooldown_s" -> "With cool-down";
             case "lower_bound_s" -> "Lower bound";
             case "bound_ratio" -> "Plan / bound";
-            case "smallest_margin_limit" -> "Tightest limit";
+            case "smallest_margin_limit" -> "Limit with the smallest margin";
             case "infeasible_limit" -> "Why infeasible";
             case "ceiling_headroom_K" -> "Ceiling headroom";
             case "peak_pressure_Pa" -> "Peak pressure";
@@ -608,7 +624,13 @@ final class HtmlReport {
             return SiScale.of(Math.abs(x), "Pa").format(x);
         }
         if (h.endsWith("_K")) {
-            return ReportText.plain(x, 4) + " K";
+            return Readable.kelvin(x);
+        }
+        if (h.equals("bound_ratio")) {
+            return String.format(java.util.Locale.ROOT, "%.3f", x);
+        }
+        if (h.equals("smallest_margin") || h.startsWith("margin_")) {
+            return Readable.ratio(x);
         }
         return tidy(v);
     }
