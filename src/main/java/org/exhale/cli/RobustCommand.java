@@ -228,7 +228,10 @@ final class RobustCommand implements Callable<Integer> {
         Map<String, Object> t = new LinkedHashMap<>();
         t.put("p50_s", SummaryJsonWriter.num(sum.p50S()));
         t.put("p95_s", SummaryJsonWriter.num(sum.p95S()));
-        t.put("p" + Numbers.sig(quantile * 100, 4) + "_s", SummaryJsonWriter.num(sum.pqS()));
+        if (Math.abs(quantile - 0.95) > 1e-9 && Math.abs(quantile - 0.5) > 1e-9) {
+            // the chosen quantile, when it is not one of the two above ("p90_s", "p97.5_s")
+            t.put("p" + org.exhale.report.ReportText.plain(quantile * 100, 4) + "_s", SummaryJsonWriter.num(sum.pqS()));
+        }
         t.put("not_reached", sum.notReached());
         t.put("note", "quantiles by linear interpolation of order statistics (Hyndman and Fan definition 7); a sample "
                 + "that never reaches the residue target counts as infinitely slow (null)");

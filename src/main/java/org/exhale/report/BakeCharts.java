@@ -51,6 +51,19 @@ final class BakeCharts {
         this(history, margins, null, caseName);
     }
 
+    /** Component names as the user wrote them, by their CSV-safe form in history.csv. */
+    private final Map<String, String> componentNames = new java.util.HashMap<>();
+
+    /** Tells the charts the components' names as written in the case (summary.json "components"). */
+    BakeCharts names(JsonNode components) {
+        if (components != null) {
+            for (JsonNode c : components) {
+                componentNames.put(org.exhale.io.HistoryCsvWriter.header(c.asText()), c.asText());
+            }
+        }
+        return this;
+    }
+
     BakeCharts(CsvTable history, JsonNode margins, JsonNode summaryCorners, String caseName) {
         this.h = history;
         if (summaryCorners != null) {
@@ -216,6 +229,7 @@ final class BakeCharts {
             int j = 0;
             for (String col : parts) {
                 String comp = col.substring(2, col.length() - 3);
+                comp = componentNames.getOrDefault(comp, comp);
                 p.add(PlotBuilder.series(name(ReportText.label(comp), pc), h, pc, "time_s", MIN, col, u::apply),
                         5 + j, 2 + j, 3 + j, 1.8f, false);
                 j++;

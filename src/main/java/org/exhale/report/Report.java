@@ -52,7 +52,8 @@ public record Report(String html, List<Figure> figures, Map<String, String> svg,
         List<Figure> out = new ArrayList<>();
         folder.history().ifPresent(h -> out.addAll(new BakeCharts(h,
                 folder.summary().map(s -> s.path("margins")).orElse(null),
-                folder.summary().map(s -> s.path("corners")).orElse(null), folder.caseName()).all()));
+                folder.summary().map(s -> s.path("corners")).orElse(null), folder.caseName())
+                .names(folder.summary().map(s -> s.path("components")).orElse(null)).all()));
         PlanCharts.lowerBound(folder).ifPresent(out::add);
         if (folder.fit().isPresent() || folder.fitTable().isPresent() || folder.isoconversional().isPresent()) {
             out.addAll(new FitCharts(folder).all());

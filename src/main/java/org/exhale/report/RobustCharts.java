@@ -422,6 +422,11 @@ final class RobustCharts {
         JsonNode any = j.path("any_limit");
         double top = 0;
         int samples = j.path("samples_done").asInt(s == null ? 0 : s.size());
+        boolean none = any.path("probability").isNumber() && any.path("probability").asDouble() == 0
+                && rows.stream().allMatch(v -> v.path("violations").asInt(0) == 0);
+        if (none) {
+            rows.clear(); // one bar says it: the same bound for every limit would only repeat it
+        }
         for (JsonNode v : rows) {
             double p = v.path("probability").asDouble(0) * 100;
             double se = v.path("standard_error").asDouble(0) * 100;
@@ -456,8 +461,9 @@ final class RobustCharts {
         CategoryPlot plot = new CategoryPlot(d, x, y, r);
         bars(plot, r);
         r.setDefaultItemLabelsVisible(false);
-        JFreeChart chart = ChartStyle.chart("Probability of violating each limit", plot, subtitle, samplesNote());
-        return new Figure("robust-violation", "Probability of violating each limit",
+        String title = none ? "No violations in " + samples + " samples" : "Probability of violating each limit";
+        JFreeChart chart = ChartStyle.chart(title, plot, subtitle, samplesNote());
+        return new Figure("robust-violation", title,
                 "The share of samples that violate each limit, with its binomial standard error as an error bar; "
                         + "where no sample violated a limit the light bar gives the 95 % upper bound (three over the "
                         + "number of samples).", chart);

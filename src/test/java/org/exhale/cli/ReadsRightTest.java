@@ -161,6 +161,14 @@ class ReadsRightTest {
     }
 
     @Test
+    void chartsNameComponentsAsTheUserWroteThem() throws Exception {
+        // the template names a component "side groups"; history.csv has the CSV-safe p_side_groups_Pa
+        String svg = Files.readString(plan.resolve("charts/pressure.svg"));
+        assertTrue(svg.contains(">side groups, "), "legend as typed");
+        assertFalse(svg.contains("side_groups"));
+    }
+
+    @Test
     void chartsHaveAtMostAboutEightTicksPerAxis() throws Exception {
         // every numeric label of a single-panel chart belongs to one of its two axes
         for (String id : List.of("temperature", "pressure", "unconverted")) {
