@@ -645,7 +645,7 @@ final class HtmlReport {
             int n = j.path("samples_done").asInt(0);
             b.append(p == 0 ? "<p class=\"verdict ok\">" : "<p class=\"verdict bad\">")
                     .append(escape(p == 0 && n > 0
-                            ? "✓ No limit violated in " + n + " samples (95 % upper bound " + sig(300.0 / n, 2) + " %)"
+                            ? "✓ No limit violated in " + n + " samples (95 % upper bound " + sig(Math.min(100, 300.0 / n), 2) + " %)"
                             : "Some limit violated in " + sig(p * 100, 3) + " ± "
                             + sig(any.path("standard_error").asDouble(0) * 100, 2) + " % of samples")).append("</p>\n");
         }

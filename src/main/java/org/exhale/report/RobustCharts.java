@@ -445,7 +445,7 @@ final class RobustCharts {
         if (any.path("probability").isNumber()) {
             double p = any.path("probability").asDouble() * 100;
             double se = any.path("standard_error").asDouble(0) * 100;
-            double up = p == 0 && samples > 0 ? 300.0 / samples : Double.NaN;
+            double up = p == 0 && samples > 0 ? Math.min(100, 300.0 / samples) : Double.NaN;
             String name = "any limit: " + (Double.isNaN(up) ? ReportText.sig(p, 3) + " ± " + ReportText.sig(se, 2) + " %"
                     : "none of " + samples + ", < " + ReportText.sig(up, 2) + " %");
             d.add(p, se, p0, name);

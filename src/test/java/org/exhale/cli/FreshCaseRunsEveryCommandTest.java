@@ -54,11 +54,9 @@ class FreshCaseRunsEveryCommandTest {
         }
         if (!dense) {
             assertEquals(Main.OK, Main.execute("report", dir.resolve("robust").toString(), "-q"));
-            String json = Files.readString(dir.resolve("robust/robust.json"));
-            if (json.matches("(?s).*\"any_limit\"\\s*:\\s*\\{\\s*\"probability\"\\s*:\\s*0\\.0,.*")) {
-                assertTrue(Files.readString(dir.resolve("robust/charts/robust-violation.svg")).contains("No violations in 2 samples"));
-                assertTrue(Files.readString(dir.resolve("robust/report.html")).contains("No limit violated in 2 samples"));
-            }
+            // seed 1, two samples of the fresh line case: no limit is violated, and the page and chart say so
+            assertTrue(Files.readString(dir.resolve("robust/charts/robust-violation.svg")).contains("No violations in 2 samples"));
+            assertTrue(Files.readString(dir.resolve("robust/report.html")).contains("No limit violated in 2 samples"));
         }
         assertTrue(Files.readString(dir.resolve("sim/summary.json")).contains("\"chamber\""), "the exhaust is checked");
     }
