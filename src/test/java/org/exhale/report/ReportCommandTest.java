@@ -48,6 +48,6 @@ class ReportCommandTest {
 
     @Test
     void badFolderIsExitTwo(@TempDir Path dir) {
-        assertEquals(Main.BAD_INPUT, Main.execute("report", dir.resolve("absent").toString()));
+        assertEquals(Main.BAD_INPUT, org.exhale.cli.Quiet.execute("report", dir.resolve("absent").toString()));
     }
 }
