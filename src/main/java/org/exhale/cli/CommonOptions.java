@@ -7,7 +7,11 @@ public final class CommonOptions {
     @Option(names = "--debug", description = "Print stack traces of errors.")
     boolean debug;
 
-    @Option(names = "--force", description = "Write into an existing, non-empty output folder.")
+    /** One meaning everywhere: see {@link #FORCE}. */
+    static final String FORCE = "Replace what an earlier run wrote at the output path; without --force an existing "
+            + "result is kept and the command stops.";
+
+    @Option(names = "--force", description = FORCE)
     boolean force;
 
     @Option(names = {"-q", "--quiet"}, description = "Print nothing but errors.")

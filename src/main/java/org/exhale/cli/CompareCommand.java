@@ -18,6 +18,7 @@ import org.exhale.io.OutputFolder;
 import org.exhale.io.RecipeCsvWriter;
 import org.exhale.io.SummaryJsonWriter;
 import org.exhale.report.Cautions;
+import org.exhale.report.Readable;
 import org.exhale.studies.Compare;
 import org.exhale.studies.ParallelRuns;
 import org.exhale.studies.Variation;
@@ -113,7 +114,7 @@ final class CompareCommand implements Callable<Integer> {
             cf.warnings().forEach(w -> System.out.println("Warning: " + w));
             System.out.println("Wrote " + dir + " (options.csv, compare.json, recipes/)"
                     + String.format(java.util.Locale.ROOT, " after %.1f s", (System.nanoTime() - t0) / 1e9));
-            Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+            System.out.println(Cautions.terminal(cf.bake().chamber() != null));
         }
         return s.anyFeasible ? Main.OK : Main.INFEASIBLE;
     }
@@ -165,11 +166,13 @@ final class CompareCommand implements Callable<Integer> {
         }
         m.put("vary", keys);
         m.put("best", text.lines().findFirst().orElse(""));
+        m.put("ranking", RANKING);
+        int[] rank = Compare.ranks(ranked);
         List<Object> opts = new ArrayList<>();
         for (int r = 0; r < ranked.size(); r++) {
             Compare.Option o = ranked.get(r);
             Map<String, Object> e = new LinkedHashMap<>();
-            e.put("rank", r + 1);
+            e.put("rank", rank[r]);
             e.put("option", o.index() + 1);
             Map<String, Object> vals = new LinkedHashMap<>();
             for (int k = 0; k < vary.size(); k++) {
@@ -206,6 +209,10 @@ final class CompareCommand implements Callable<Integer> {
         return new Summary(text, ranked.stream().anyMatch(Compare.Option::feasible));
     }
 
+    /** The ranking rule, as the outputs state it. */
+    static final String RANKING = "feasible options by planned duration, then by the larger smallest margin, as resolved "
+            + "(durations to 1 s, margins to 3 significant digits); options equal in both tie and share a rank";
+
     static String describe(List<Variation> vary, Compare.Option o) {
         List<String> parts = new ArrayList<>();
         for (int k = 0; k < vary.size(); k++) {
@@ -229,40 +236,60 @@ final class CompareCommand implements Callable<Integer> {
             sb.append('\n');
         } else {
             Compare.Option best = ranked.get(0);
-            sb.append(String.format(Locale.ROOT, "Best option: %s, %.1f min to target, %s x its lower bound, "
-                            + "smallest margin %s (%s).%n", describe(vary, best), best.durationS() / 60,
-                    Numbers.sig(best.boundRatio(), 4), Numbers.sig(best.smallestMargin(), 3), best.smallestLimit()));
+            List<Compare.Option> tiedFirst = new ArrayList<>();
+            for (Compare.Option o : ranked) {
+                if (o == best || Compare.tied(best, o)) {
+                    tiedFirst.add(o);
+                }
+            }
+            if (tiedFirst.size() > 1) {
+                sb.append(String.format(Locale.ROOT, "%d options tie for first: %s; %.1f min to target, smallest margin %s "
+                                + "(%s). They differ by less than the resolution (1 s, 3 digits of margin): choose among "
+                                + "them on other grounds.%n", tiedFirst.size(),
+                        String.join(", ", tiedFirst.stream().map(o -> "#" + (o.index() + 1)).toList()),
+                        best.durationS() / 60, Readable.ratio(best.smallestMargin()), best.smallestLimit()));
+            } else {
+                sb.append(String.format(Locale.ROOT, "Best option: %s, %.1f min to target, %s x its lower bound, "
+                                + "smallest margin %s (%s).%n", describe(vary, best), best.durationS() / 60,
+                        Numbers.fixed(best.boundRatio(), 3), Readable.ratio(best.smallestMargin()), best.smallestLimit()));
+            }
             int front = 0;
+            java.util.Set<String> points = new java.util.HashSet<>();
             Compare.Option safest = null;
             for (int r = 0; r < ranked.size(); r++) {
                 if (pareto[r]) {
                     front++;
-                    if (safest == null || ranked.get(r).smallestMargin() > safest.smallestMargin()) {
+                    points.add(Math.round(ranked.get(r).durationS()) + "/" + Compare.resolved(ranked.get(r).smallestMargin()));
+                    if (safest == null || Compare.resolved(ranked.get(r).smallestMargin()) > Compare.resolved(safest.smallestMargin())) {
                         safest = ranked.get(r);
                     }
                 }
             }
-            sb.append(String.format(Locale.ROOT, "%d of %d options are feasible; %d on the Pareto front of time against "
-                    + "smallest margin", feasible, total, front));
-            if (safest != null && safest != best) {
+            sb.append(String.format(Locale.ROOT, "%d of %d options are feasible; the Pareto front of time against smallest "
+                    + "margin has %d point%s (%d option%s)", feasible, total, points.size(), points.size() == 1 ? "" : "s",
+                    front, front == 1 ? "" : "s"));
+            if (safest != null && !Compare.tied(safest, best) && safest != best) {
                 sb.append(String.format(Locale.ROOT, "; the safest of these is %s, %.1f min, margin %s (%s)",
-                        describe(vary, safest), safest.durationS() / 60, Numbers.sig(safest.smallestMargin(), 3),
+                        describe(vary, safest), safest.durationS() / 60, Readable.ratio(safest.smallestMargin()),
                         safest.smallestLimit()));
             }
-            sb.append(".\n");
+            sb.append(".\nRanking: ").append(RANKING).append(".\n");
         }
         sb.append(String.format(Locale.ROOT, "%-5s %-7s %-40s %10s %8s %9s  %s%n", "rank", "option", "values", "time min",
                 "ratio", "margin", "limit / verdict"));
         int shown = Math.min(ranked.size(), 20);
+        int[] rank = Compare.ranks(ranked);
         for (int r = 0; r < shown; r++) {
             Compare.Option o = ranked.get(r);
             String vals = describe(vary, o).replaceFirst("^#\\d+ \\(", "").replaceFirst("\\)$", "");
             if (o.feasible()) {
-                sb.append(String.format(Locale.ROOT, "%-5d %-7s %-40s %10.1f %8s %9s  %s%s%n", r + 1, "#" + (o.index() + 1),
-                        vals, o.durationS() / 60, Numbers.sig(o.boundRatio(), 4), Numbers.sig(o.smallestMargin(), 3),
+                sb.append(String.format(Locale.ROOT, "%-5s %-7s %-40s %10.1f %8s %9s  %s%s%n",
+                        rank[r] + (r + 1 < ranked.size() && rank[r + 1] == rank[r] || r > 0 && rank[r - 1] == rank[r] ? "=" : ""),
+                        "#" + (o.index() + 1),
+                        vals, o.durationS() / 60, Numbers.fixed(o.boundRatio(), 3), Readable.ratio(o.smallestMargin()),
                         o.smallestLimit(), pareto[r] ? "  (Pareto)" : ""));
             } else {
-                sb.append(String.format(Locale.ROOT, "%-5d %-7s %-40s %10s %8s %9s  infeasible: %s (%s)%n", r + 1,
+                sb.append(String.format(Locale.ROOT, "%-5d %-7s %-40s %10s %8s %9s  infeasible: %s (%s)%n", rank[r],
                         "#" + (o.index() + 1), vals, "-", "-", "-", o.verdictLimit(), o.verdictReason()));
             }
         }

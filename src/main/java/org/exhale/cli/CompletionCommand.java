@@ -12,9 +12,12 @@ import picocli.CommandLine.Spec;
 @Command(name = "completion", mixinStandardHelpOptions = true,
         header = "Print a bash and zsh completion script for exhale.",
         description = {"The script is generated from the command definitions, so it always matches this version.",
-                "bash:  source <(exhale completion)      (or save it to /etc/bash_completion.d/exhale)",
-                "zsh:   autoload -U +X compinit && compinit; autoload -U +X bashcompinit && bashcompinit;"
-                        + " source <(exhale completion)",
+                "bash (or save the script to /etc/bash_completion.d/exhale):",
+                "  source <(exhale completion)",
+                "zsh (through its bash-completion emulation):",
+                "  autoload -U +X compinit && compinit",
+                "  autoload -U +X bashcompinit && bashcompinit",
+                "  source <(exhale completion)",
                 "It completes the command 'exhale'; if you run 'java -jar exhale.jar', define an alias or a "
                         + "wrapper script named exhale first."})
 final class CompletionCommand implements Callable<Integer> {

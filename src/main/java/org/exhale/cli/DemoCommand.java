@@ -34,12 +34,15 @@ final class DemoCommand implements Callable<Integer> {
             }
             System.out.println("=== " + p + " ===");
             String name = c.replace(".yaml", "");
-            int code = new CommandLine(new PlanCommand()).setExecutionExceptionHandler((e, cl, pr) -> {
+            PlanCommand plan = new PlanCommand();
+            plan.cautionsElsewhere = true;
+            int code = new CommandLine(plan).setExecutionExceptionHandler((e, cl, pr) -> {
                 throw e;
             }).execute(p.toString(), "-o", "out/demo/" + name, "--force", "--report");
             System.out.println();
             worst = Math.max(worst, code);
         }
+        System.out.println(org.exhale.report.Cautions.terminal(true));
         return worst;
     }
 }

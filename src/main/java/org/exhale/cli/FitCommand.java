@@ -40,16 +40,16 @@ import picocli.CommandLine.Spec;
 @Command(name = "fit", mixinStandardHelpOptions = true,
         header = "Fit decomposition kinetics to thermogravimetric runs at several heating rates.",
         description = {
-            "Reads TGA runs (CSV: time, sample temperature, mass; one file per run or a 'run' column),",
-            "converts mass to conversion, measures each run's real heating rate, computes E(alpha) by",
-            "Friedman, KAS, Ozawa-Flynn-Wall, Starink and Vyazovkin with confidence intervals, Kissinger's",
-            "peak E and A, and fits 1 to 3 parallel components to all runs at once along their measured",
-            "temperature. Before that, an early separate mass-loss step (moisture, solvent) is cut off,",
-            "a sloping end plateau (drift, buoyancy) is corrected, and optionally a thermal lag.",
-            "The number of components is chosen by an information criterion with an effective sample",
-            "size, and a new component must carry at least 3 %% of the mass and differ from the others.",
-            "Writes kinetics.yaml (a polymer components block for a case file),",
-            "isoconversional.csv, fit.csv and fit.json to the output folder."},
+            "Reads TGA runs (CSV: time, sample temperature, mass; one file per run or a 'run' column), "
+            + "converts mass to conversion, measures each run's real heating rate, computes E(alpha) by "
+            + "Friedman, KAS, Ozawa-Flynn-Wall, Starink and Vyazovkin with confidence intervals, Kissinger's "
+            + "peak E and A, and fits 1 to 3 parallel components to all runs at once along their measured "
+            + "temperature. Before that, an early separate mass-loss step (moisture, solvent) is cut off, "
+            + "a sloping end plateau (drift, buoyancy) is corrected, and optionally a thermal lag. "
+            + "The number of components is chosen by an information criterion with an effective sample "
+            + "size, and a new component must carry at least 3 %% of the mass and differ from the others. "
+            + "Writes kinetics.yaml (a polymer components block for a case file), "
+            + "isoconversional.csv, fit.csv and fit.json to the output folder."},
         footer = {"", "Exit codes: 0 success, 2 bad input (the message names file, row and column and what to do),",
             "3 no model fit could be made (isoconversional.csv and fit.json are still written)."})
 public final class FitCommand implements Callable<Integer> {

@@ -19,16 +19,18 @@ import picocli.CommandLine.Command;
                 SchemaCommand.class, CompletionCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 all limits met; 1 internal error; 2 bad input; 3 a limit is violated; "
                 + "4 no feasible recipe; 130 stopped with Ctrl-C (compare and robust keep the work done)."})
-public final class Main implements Runnable {
+public final class Main implements java.util.concurrent.Callable<Integer> {
     public static final int OK = 0;
     public static final int INTERNAL = 1;
     public static final int BAD_INPUT = 2;
     public static final int VIOLATED = 3;
     public static final int INFEASIBLE = 4;
 
+    /** Bare {@code exhale}: a command is missing, so the usage goes to stderr with exit 2. */
     @Override
-    public void run() {
-        new CommandLine(this).usage(System.out);
+    public Integer call() {
+        commandLine().usage(System.err);
+        return BAD_INPUT;
     }
 
     public static void main(String[] args) {
@@ -61,6 +63,7 @@ public final class Main implements Runnable {
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
         giveVersionToAll(cl);
+        HelpText.apply(cl);
         cl.setExecutionExceptionHandler(Main::handle);
         cl.setParameterExceptionHandler((ex, a) -> {
             PrintWriter err = ex.getCommandLine().getErr();

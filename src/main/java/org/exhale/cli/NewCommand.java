@@ -36,7 +36,7 @@ final class NewCommand implements Callable<Integer> {
             description = "File to write; '-' for stdout (default: KIND.yaml, or KIND-dense.yaml, in the current folder).")
     Path output;
 
-    @Option(names = "--force", description = "Overwrite FILE if it exists.")
+    @Option(names = "--force", description = CommonOptions.FORCE)
     boolean force;
 
     @Spec

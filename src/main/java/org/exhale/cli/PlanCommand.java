@@ -22,6 +22,7 @@ import org.exhale.planning.Planner;
 import org.exhale.recipe.Recipe;
 import org.exhale.recipe.Step;
 import org.exhale.report.Cautions;
+import org.exhale.report.RecipeSheet;
 import org.exhale.report.TextSummary;
 import org.exhale.simulation.Margin;
 
@@ -51,30 +52,54 @@ final class PlanCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 
+    /** Set by {@code demo}, which prints the cautions once for all its cases. */
+    boolean cautionsElsewhere;
+
     @Override
     public Integer call() {
         CaseFile cf = CaseYamlReader.read(casePath);
         CompareCommand.requireTool(cf, casePath);
         Path dir = output != null ? output : Path.of("out", SimulateCommand.defaultOutput(casePath).getFileName() + "-plan");
-        OutputFolder out = new OutputFolder(dir, common.force).owns("recipe.csv", "recipe.yaml", "history.csv", "summary.json", "report.html", "charts");
+        OutputFolder out = new OutputFolder(dir, common.force).owns("recipe.csv", "recipe.yaml", "recipe.txt", "history.csv", "summary.json", "report.html", "charts");
         out.checkWritable();
         long t0 = System.nanoTime();
         PlanResult plan = Planner.plan(cf.bake(), cf.tool());
         double seconds = (System.nanoTime() - t0) / 1e9;
         List<String> warnings = new ArrayList<>(cf.warnings());
-        out.put("plan.json", SummaryJsonWriter.toJson(planJson(plan, seconds)));
+        Map<String, Object> pj = planJson(plan, seconds);
+        pj.put("overshoot_K", cf.tool().overshootK());
+        pj.put("spread_K", cf.bake().wafer().spreadK());
+        pj.put("exhale_version", VersionProvider.version());
+        String planText = SummaryJsonWriter.toJson(pj);
+        out.put("plan.json", planText);
+        String sheet = null;
         if (plan.feasible()) {
-            out.put("recipe.csv", RecipeCsvWriter.csv(plan.recipe()));
+            String csv = RecipeCsvWriter.csv(plan.recipe());
+            String summary = SummaryJsonWriter.toJson(SummaryJsonWriter.summary(plan.verification(), warnings));
+            sheet = RecipeSheet.of(planText, csv, summary).text(VersionProvider.version());
+            out.put("recipe.csv", csv);
+            out.put("recipe.txt", sheet);
             out.put("recipe.yaml", RecipeCsvWriter.yaml(plan.recipe()));
             out.put("history.csv", HistoryCsvWriter.write(plan.verification()));
-            out.put("summary.json", SummaryJsonWriter.toJson(SummaryJsonWriter.summary(plan.verification(), warnings)));
+            out.put("summary.json", summary);
         }
         out.commit();
         if (!common.quiet) {
-            System.out.print(text(plan, seconds));
+            if (sheet != null) {
+                // the sheet without its signature line and closing caution (printed once below)
+                System.out.print(sheet.replaceFirst("Date: _+ +Approved by: _+\n\n", "\n")
+                        .replaceFirst("(?s)\nCaution: .*$", ""));
+                System.out.print(TextSummary.limits(plan.verification().margins(), false));
+                System.out.printf(Locale.ROOT, "Planning: %d simulations, %.2f s%n", plan.evaluations(), seconds);
+            } else {
+                System.out.print(text(plan, seconds));
+            }
             warnings.forEach(w -> System.out.println("Warning: " + w));
-            System.out.println("Wrote " + out.dir() + (plan.feasible() ? " (recipe.csv, recipe.yaml, plan.json, history.csv, summary.json)" : " (plan.json)"));
-            Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+            System.out.println("Wrote " + out.dir() + (plan.feasible()
+                    ? " (recipe.txt to print, recipe.csv, recipe.yaml, plan.json, history.csv, summary.json)" : " (plan.json)"));
+            if (!cautionsElsewhere) {
+                System.out.println(Cautions.terminal(cf.bake().chamber() != null));
+            }
         }
         if (report) {
             ReportCommand.render(out.dir(), common.quiet);
@@ -190,9 +215,7 @@ final class PlanCommand implements Callable<Integer> {
                     p.rideS() / 60, Numbers.sig(p.rideRatio(), 4)));
         }
         sb.append("Verified: ").append(p.verified() ? "yes, the rounded recipe meets every limit at every corner" : "NO").append('\n');
-        for (Margin m : p.verification().margins()) {
-            sb.append("  ").append(TextSummary.line(m)).append('\n');
-        }
+        sb.append(TextSummary.limits(p.verification().margins()));
         sb.append(String.format(Locale.ROOT, "Planning: %d simulations, %.2f s%n", p.evaluations(), seconds));
         return sb.toString();
     }

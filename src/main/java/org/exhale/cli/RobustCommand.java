@@ -171,7 +171,7 @@ final class RobustCommand implements Callable<Integer> {
             cf.warnings().forEach(w -> System.out.println("Warning: " + w));
             System.out.println("Wrote " + dir + " (samples.csv, robust.json, recipe.yaml, recipe.csv)"
                     + String.format(java.util.Locale.ROOT, " after %.1f s", (System.nanoTime() - t0) / 1e9));
-            Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+            System.out.println(Cautions.terminal(cf.bake().chamber() != null));
         }
         return code;
     }
@@ -229,7 +229,10 @@ final class RobustCommand implements Callable<Integer> {
         Map<String, Object> t = new LinkedHashMap<>();
         t.put("p50_s", SummaryJsonWriter.num(sum.p50S()));
         t.put("p95_s", SummaryJsonWriter.num(sum.p95S()));
-        t.put("p" + Numbers.sig(quantile * 100, 4) + "_s", SummaryJsonWriter.num(sum.pqS()));
+        if (Math.abs(quantile - 0.95) > 1e-9 && Math.abs(quantile - 0.5) > 1e-9) {
+            // the chosen quantile, when it is not one of the two above ("p90_s", "p97.5_s")
+            t.put("p" + org.exhale.report.ReportText.plain(quantile * 100, 4) + "_s", SummaryJsonWriter.num(sum.pqS()));
+        }
         t.put("not_reached", sum.notReached());
         // the residue limit is judged here: a sample violates it exactly when its time to target is later
         t.put("residue_checkpoint", SummaryJsonWriter.checkpoint(recipe.residueCheckpoint()));
@@ -244,10 +247,10 @@ final class RobustCommand implements Callable<Integer> {
         m.put("notes", List.of(
                 "each value is normal around the case's value with the given standard deviation, truncated to its physical "
                         + "range by redrawing; a component's Ea and ln A are drawn as a correlated pair",
-                "sample i draws each value from its own SplittableRandom stream seeded from (seed, i, value), so results "
-                        + "do not depend on the number of threads",
-                "slack = ln(allowed/actual) puts every limit on one scale (the ceiling on absolute temperature); the "
-                        + "smallest margin of a sample is its smallest slack",
+                "sample i draws each value from its own random stream, seeded from the seed, i and the value, so "
+                        + "results do not depend on the number of threads",
+                "a margin is allowed/actual (1 or more holds); the smallest margin of a sample is its smallest ratio "
+                        + "margin, the tightest limit; the ceiling is followed on its own as headroom in K",
                 "rank correlations below about " + Numbers.sig(2 / Math.sqrt(Math.max(1, sum.n() - 1)), 2)
                         + " in size (2/sqrt(n-1)) are not distinguishable from none"));
         m.put("warnings", cf.warnings());

@@ -77,7 +77,7 @@ final class SimulateCommand implements Callable<Integer> {
         if (!common.quiet) {
             System.out.print(TextSummary.of(r, warnings));
             System.out.println("Wrote " + out.dir().resolve("history.csv") + " and summary.json");
-            Cautions.BAKE.forEach(c -> System.out.println("Caution: " + c));
+            System.out.println(Cautions.terminal(cf.bake().chamber() != null));
         }
         if (report) {
             ReportCommand.render(out.dir(), common.quiet);

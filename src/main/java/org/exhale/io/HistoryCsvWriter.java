@@ -9,7 +9,9 @@ import org.exhale.simulation.CornerResult;
 /**
  * Writes the bake history as CSV: one row per sample and corner, a {@code corner} column first.
  * Temperatures are written in °C (columns ending {@code _C}); everything else in SI with the unit
- * in the column name.
+ * in the column name. {@code setpoint_C} is the tool's one setpoint, the same at every corner at a
+ * given time; {@code wafer_C} is each corner's wafer temperature (the corner's offset, the
+ * across-wafer spread, is in summary.json as {@code offset_K}).
  */
 public final class HistoryCsvWriter {
     private HistoryCsvWriter() {
@@ -30,6 +32,9 @@ public final class HistoryCsvWriter {
                     double v = row[i];
                     if (cols.get(i).endsWith("_K")) {
                         v -= PhysicalConstants.ZERO_CELSIUS_K;
+                    }
+                    if (cols.get(i).equals("setpoint_K")) {
+                        v -= corner.offsetK(); // the model's corner sees setpoint + offset; the tool has one setpoint
                     }
                     sb.append(',').append(Numbers.csv(v));
                 }

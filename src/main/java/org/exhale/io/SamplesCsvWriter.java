@@ -7,7 +7,8 @@ import org.exhale.studies.MonteCarlo;
 /**
  * Writes the samples of a robustness study: one row per sample, the sampled parameters in their
  * display units, whether every limit holds, the time to target and every margin (ratio margins;
- * the ceiling as headroom in kelvin), and the limit with the smallest slack ln(allowed/actual).
+ * the ceiling as headroom in kelvin), and the tightest limit: the smallest ratio margin
+ * allowed/actual (the ceiling, in kelvin, is not compared with ratios).
  */
 public final class SamplesCsvWriter {
     private SamplesCsvWriter() {
@@ -22,7 +23,7 @@ public final class SamplesCsvWriter {
         for (String l : limits) {
             sb.append(',').append(l.equals("ceiling") ? "ceiling_headroom_K" : l + "_margin");
         }
-        sb.append(",tightest_limit,smallest_slack\n");
+        sb.append(",tightest_limit,smallest_margin\n");
         for (MonteCarlo.Outcome o : outcomes) {
             if (o == null) {
                 continue;
@@ -37,7 +38,7 @@ public final class SamplesCsvWriter {
                 sb.append(',').append(Numbers.csv(m));
             }
             int t = o.tightest();
-            sb.append(',').append(t < 0 ? "" : limits.get(t)).append(',').append(Numbers.csv(o.smallestSlack())).append('\n');
+            sb.append(',').append(t < 0 ? "" : limits.get(t)).append(',').append(Double.isInfinite(o.smallestMargin()) ? "inf" : Numbers.csv(o.smallestMargin())).append('\n');
         }
         return sb.toString();
     }

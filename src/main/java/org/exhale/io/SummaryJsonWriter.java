@@ -83,6 +83,8 @@ public final class SummaryJsonWriter {
         }
         m.put("recipe_duration_s", num(r.bake().recipe().durationS()));
         m.put("seed_conversion", r.bake().polymer().seedConversion());
+        // the components as the user named them (history.csv columns carry CSV-safe forms of the names)
+        m.put("components", r.bake().polymer().components().stream().map(org.exhale.kinetics.Component::name).toList());
         m.put("all_limits_met", r.feasible());
         m.put("margins", margins(r.margins()));
         List<Object> corners = new ArrayList<>();

@@ -44,8 +44,35 @@ final class BakeCharts {
     private final double t0;
     private final double t1;
 
+    /** Each corner's temperature offset from the setpoint [K] (summary.json), empty when unknown. */
+    private final Map<String, Double> offsets = new java.util.HashMap<>();
+
     BakeCharts(CsvTable history, JsonNode margins, String caseName) {
+        this(history, margins, null, caseName);
+    }
+
+    /** Component names as the user wrote them, by their CSV-safe form in history.csv. */
+    private final Map<String, String> componentNames = new java.util.HashMap<>();
+
+    /** Tells the charts the components' names as written in the case (summary.json "components"). */
+    BakeCharts names(JsonNode components) {
+        if (components != null) {
+            for (JsonNode c : components) {
+                componentNames.put(org.exhale.io.HistoryCsvWriter.header(c.asText()), c.asText());
+            }
+        }
+        return this;
+    }
+
+    BakeCharts(CsvTable history, JsonNode margins, JsonNode summaryCorners, String caseName) {
         this.h = history;
+        if (summaryCorners != null) {
+            for (JsonNode c : summaryCorners) {
+                if (c.path("offset_K").isNumber()) {
+                    offsets.put(c.path("corner").asText(""), c.path("offset_K").asDouble());
+                }
+            }
+        }
         this.margins = margins == null ? com.fasterxml.jackson.databind.node.MissingNode.getInstance() : margins;
         this.subtitle = ReportText.label(caseName);
         double t0 = Double.POSITIVE_INFINITY;
@@ -113,13 +140,13 @@ final class BakeCharts {
         }
         PlotBuilder p = new PlotBuilder(TIME, "Temperature [°C]", false);
         p.xRange(t0, t1);
+        if (h.has("setpoint_C")) {
+            // one setpoint for the whole wafer: the same in every corner's rows
+            p.add(PlotBuilder.series("setpoint", h, corners.get(0), "time_s", MIN, "setpoint_C", SAME), 5, 2, 6, 2f, false);
+        }
         for (String c : corners) {
             int k = cornerIndex(c);
             p.add(PlotBuilder.series(name("wafer", c), h, c, "time_s", MIN, "wafer_C", SAME), k, 0, k, 3f, false);
-            if (h.has("setpoint_C")) {
-                p.add(PlotBuilder.series(name("setpoint", c), h, c, "time_s", MIN, "setpoint_C", SAME), k, 2, k, 2f,
-                        false);
-            }
         }
         double ceiling = allowed("ceiling");
         if (Double.isFinite(ceiling)) {
@@ -127,8 +154,8 @@ final class BakeCharts {
         }
         JFreeChart c = ChartStyle.chart("Setpoint and wafer temperature", p.build(), subtitle);
         return new Figure("temperature", "Setpoint and wafer temperature",
-                "Setpoint (dotted) and wafer temperature (solid) at each corner against time, with the temperature "
-                        + "ceiling.", c);
+                "The tool's setpoint (dotted) and the wafer temperature (solid) at each corner against time, with "
+                        + "the temperature ceiling.", c);
     }
 
     Figure unconverted() {
@@ -148,8 +175,22 @@ final class BakeCharts {
             p.limit(target, "residue target " + ReportText.plain(target * 100, 3) + " %");
         }
         p.range(floor, 1.5);
-        String note = "values below " + ReportText.sig(floor, 2) + " are not drawn";
+        JsonNode res = margins.path("residue");
         XYPlot plot = p.build();
+        if (res.path("actual").isNumber() && res.path("time_s").isNumber() && res.path("actual").asDouble() >= floor) {
+            // the residue limit applies at the end of the hold: its value there against the target
+            double y = res.path("actual").asDouble();
+            XYPointerAnnotation a = new XYPointerAnnotation("end: " + Readable.percent(y) + ", margin "
+                    + Readable.ratio(res.path("margin").asDouble(Double.NaN)), res.path("time_s").asDouble() / 60, y,
+                    -Math.PI * 3 / 4);
+            a.setFont(ChartStyle.NOTE);
+            a.setPaint(ChartStyle.INK);
+            a.setArrowPaint(ChartStyle.INK);
+            a.setTextAnchor(TextAnchor.BOTTOM_RIGHT);
+            a.setLabelOffset(6);
+            plot.addAnnotation(a);
+        }
+        String note = "values below " + ReportText.sig(floor, 2) + " are not drawn";
         // the target applies at the end of the final hold (the cool-down after it does not count)
         JsonNode at = margins.path("residue").path("time_s");
         if (at.isNumber()) {
@@ -166,7 +207,8 @@ final class BakeCharts {
         JFreeChart c = ChartStyle.chart("Unconverted polymer", plot, subtitle, note);
         return new Figure("unconverted", "Unconverted polymer",
                 "Fraction of the polymer not yet decomposed, on a log axis, with the residue target the bake must "
-                        + "reach by the end of its final hold (the dashed line; the cool-down after it does not count).", c);
+                        + "reach by the end of its final hold (the dashed line; the cool-down after it does not count); "
+                        + "the arrow marks the worst corner's residue there.", c);
     }
 
     private static XYSeries clipBelow(XYSeries s, double floor) {
@@ -201,6 +243,7 @@ final class BakeCharts {
             int j = 0;
             for (String col : parts) {
                 String comp = col.substring(2, col.length() - 3);
+                comp = componentNames.getOrDefault(comp, comp);
                 p.add(PlotBuilder.series(name(ReportText.label(comp), pc), h, pc, "time_s", MIN, col, u::apply),
                         5 + j, 2 + j, 3 + j, 1.8f, false);
                 j++;
@@ -237,29 +280,46 @@ final class BakeCharts {
         CombinedDomainXYPlot combined = new CombinedDomainXYPlot(new NumberAxis(TIME));
         combined.setGap(14);
         List<String> notes = new ArrayList<>();
-        if (h.has("edge_stress_Pa")) {
-            combined.add(panel(new String[]{"edge_stress_Pa"}, new String[]{"edge stress"}, new String[]{"strength"},
-                    new String[]{"strength"}, "Pa", "Stress", notes), 1);
+        // one panel per quantity, each with its own colour and marker, against its own allowed value;
+        // a quantity that stays below a millionth of its allowed value is left out and named in the note
+        String[][] panels = {
+                {"edge_stress_Pa", "edge stress", "strength", "strength", "Pa", "Stress"},
+                {"deflection_m", "deflection", "deflection", "max deflection", "m", "Deflection"},
+                {"crack_release_J_m2", "cracking G", "cracking", "cracking Gc", "J/m²", "Cracking G"},
+                {"delamination_release_J_m2", "delamination G", "delamination", "delamination Gc", "J/m²", "Delamination G"}};
+        List<String> negligible = new ArrayList<>();
+        int base = 0;
+        for (String[] q : panels) {
+            base += 2;
+            if (!h.has(q[0])) {
+                continue;
+            }
+            double a = allowed(q[2]);
+            double peak = max(q[0]);
+            if (!(peak > 0) || Double.isFinite(a) && peak < 1e-6 * a) {
+                negligible.add(q[1]);
+                continue;
+            }
+            combined.add(panel(new String[]{q[0]}, new String[]{q[1]}, new String[]{q[2]}, new String[]{q[3]}, q[4], q[5],
+                    notes, base), 1);
         }
-        if (h.has("deflection_m")) {
-            combined.add(panel(new String[]{"deflection_m"}, new String[]{"deflection"}, new String[]{"deflection"},
-                    new String[]{"max deflection"}, "m", "Deflection", notes), 1);
+        if (!negligible.isEmpty()) {
+            notes.add("negligible (below a millionth of the allowed value), not drawn: " + String.join(", ", negligible));
         }
-        if (h.has("crack_release_J_m2") || h.has("delamination_release_J_m2")) {
-            combined.add(panel(new String[]{"crack_release_J_m2", "delamination_release_J_m2"},
-                    new String[]{"cracking G", "delamination G"}, new String[]{"cracking", "delamination"},
-                    new String[]{"cracking Gc", "delamination Gc"}, "J/m²", "G", notes), 1);
+        if (combined.getSubplots().isEmpty()) {
+            return null;
         }
         String note = notes.isEmpty() ? null : String.join("; ", notes);
         JFreeChart c = ChartStyle.chart("Cap stress, deflection and energy release", combined, subtitle, note);
         combined.getDomainAxis().setRange(t0, t1);
         return new Figure("cap-mechanics", "Cap stress, deflection and energy release",
                 "Edge stress of the cap, its deflection, and the energy release rates of channel cracking and "
-                        + "delamination at each corner, each against its allowed value.", c);
+                        + "delamination at each corner, each in its own panel against its own allowed value; "
+                        + "quantities that stay negligible are named in the note, not drawn.", c);
     }
 
     private XYPlot panel(String[] cols, String[] names, String[] limits, String[] limitNames, String siUnit,
-                         String quantity, List<String> notes) {
+                         String quantity, List<String> notes, int base) {
         double peak = 0;
         for (String col : cols) {
             if (h.has(col)) {
@@ -283,8 +343,9 @@ final class BakeCharts {
             }
             for (String c : corners) {
                 int k = cornerIndex(c);
-                p.add(PlotBuilder.series(name(names[i], c), h, c, "time_s", MIN, cols[i], u::apply), k,
-                        i * 2 + (k == 1 ? 0 : 1), k, 2.6f, false);
+                // colour and marker say the quantity, the dash the corner
+                p.add(PlotBuilder.series(name(names[i], c), h, c, "time_s", MIN, cols[i], u::apply), base + i,
+                        k == 1 ? 0 : 1, base + i, 2.6f, false);
             }
         }
         for (int i = 0; i < limits.length; i++) {
@@ -323,7 +384,7 @@ final class BakeCharts {
         if (margins.isMissingNode() || margins.size() == 0) {
             return null;
         }
-        String binding = binding(margins);
+        String binding = RecipeSheet.tightestName(margins);
         double top = 1e3;
         PlotBuilder ratio = new PlotBuilder(TIME, "Margin, allowed / actual [–, log]", true);
         ratio.xRange(t0, t1);
@@ -342,11 +403,14 @@ final class BakeCharts {
                 skipped.add(limit);
                 continue;
             }
+            if (limit.equals("residue")) {
+                continue; // applies only at the end of the hold: shown there on the unconverted-polymer chart
+            }
             String c = worstCorner(limit);
-            String label = limit.equals("residue") ? "residue (applies at the end of the final hold)" : limit;
+            String label = limit;
             boolean isBinding = limit.equals(binding);
             if (isBinding) {
-                label += " — binding";
+                label += " — tightest";
             }
             XYSeries s = PlotBuilder.series(name(label, c), h, c, "time_s", MIN, e.getValue(),
                     v -> v > 0 ? a / v : Double.NaN);
@@ -390,7 +454,7 @@ final class BakeCharts {
         XYPlot rp = ratio.build();
         if (bindingPoint != null && Double.isFinite(bindingPoint[0]) && bindingPoint[1] > 0) {
             XYPointerAnnotation a = new XYPointerAnnotation(
-                    "binding: " + ReportText.label(binding) + " ×" + ReportText.sig(bindingPoint[1], 4),
+                    "tightest: " + ReportText.label(binding) + " " + Readable.ratio(bindingPoint[1]),
                     bindingPoint[0], Math.min(bindingPoint[1], top), -Math.PI / 4);
             a.setFont(ChartStyle.NOTE);
             a.setPaint(ChartStyle.INK);
@@ -415,7 +479,8 @@ final class BakeCharts {
                 }
                 double t = h.number(r, "wafer_C");
                 if (h.has("setpoint_C")) {
-                    t = Math.max(t, h.number(r, "setpoint_C"));
+                    // the ceiling is checked on the corner's setpoint, the tool's setpoint plus the corner's offset
+                    t = Math.max(t, h.number(r, "setpoint_C") + offsets.getOrDefault(c == null ? "" : c, 0.0));
                 }
                 if (Double.isFinite(t)) {
                     s.add(h.number(r, "time_s") / 60, ceiling - t);
@@ -433,7 +498,9 @@ final class BakeCharts {
         JFreeChart c = ChartStyle.chart("Every margin against time", combined, subtitle, ReportText.label(note));
         combined.getDomainAxis().setRange(t0, t1);
         return new Figure("margins", "Every margin against time",
-                "For each limit, allowed over actual value at the corner where it is worst (below 1 the limit is "
-                        + "broken); the binding limit is drawn thick. Below: headroom to the temperature ceiling.", c);
+                "For each limit, the margin allowed / actual at the corner where it is worst (below 1 the limit is "
+                        + "broken); the tightest limit the recipe can change is drawn thick. The residue applies only "
+                        + "at the end of the hold and is shown there on the unconverted-polymer chart. Below: headroom "
+                        + "to the temperature ceiling in K.", c);
     }
 }

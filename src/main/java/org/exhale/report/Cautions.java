@@ -19,4 +19,14 @@ public final class Cautions {
                     + "dead zones.",
             "Follow the site's exhaust, gas-detection and safety rules and consult qualified facilities engineers "
                     + "before relying on these figures.");
+
+    /**
+     * The cautions as the terminal shows them, once per run: one line that carries each of them in
+     * short, and where the full text is. Every output file and report keeps the full text.
+     */
+    public static String terminal(boolean chamber) {
+        return "Caution: model estimates: confirm every recipe on test wafers; hot wafers and possibly flammable or "
+                + "toxic products need your site's safety and exhaust rules" + (chamber ? " (chamber figures assume "
+                + "a well-mixed chamber)" : "") + ". Full cautions are in the output files.";
+    }
 }

@@ -34,12 +34,62 @@ public final class ChartRenderer {
      * @param sized    true for a standalone file (width and height given), false for a page (scales to its box)
      */
     public static String svg(JFreeChart chart, int width, int height, String idPrefix, boolean sized) {
+        limitTicks(chart);
         SVGGraphics2D g = new SVGGraphics2D(width, height);
         g.setDefsKeyPrefix(idPrefix);
         g.setRenderingHint(SVGHints.KEY_DRAW_STRING_TYPE, SVGHints.VALUE_DRAW_STRING_TYPE_STANDARD);
         chart.draw(g, new Rectangle2D.Double(0, 0, width, height));
         String svg = g.getSVGElement(idPrefix + "svg", sized, new ViewBox(0, 0, width, height), null, null);
         return clean(svg);
+    }
+
+    /** Most ticks on a linear axis: more only clutter the chart. */
+    static final int MAX_TICKS = 8;
+
+    /**
+     * Gives every linear axis a round tick step (1, 2 or 5 × 10^n) that puts at most
+     * {@link #MAX_TICKS} ticks on it; log axes keep their decades.
+     */
+    static void limitTicks(JFreeChart chart) {
+        java.util.List<org.jfree.chart.plot.XYPlot> plots = new java.util.ArrayList<>();
+        if (chart.getPlot() instanceof org.jfree.chart.plot.CombinedDomainXYPlot c) {
+            plots.add(c);
+            plots.addAll(c.getSubplots());
+        } else if (chart.getPlot() instanceof org.jfree.chart.plot.XYPlot x) {
+            plots.add(x);
+        } else if (chart.getPlot() instanceof org.jfree.chart.plot.CategoryPlot c) {
+            for (int i = 0; i < c.getRangeAxisCount(); i++) {
+                roundTicks(c.getRangeAxis(i));
+            }
+        }
+        for (org.jfree.chart.plot.XYPlot p : plots) {
+            for (int i = 0; i < p.getDomainAxisCount(); i++) {
+                roundTicks(p.getDomainAxis(i));
+            }
+            for (int i = 0; i < p.getRangeAxisCount(); i++) {
+                roundTicks(p.getRangeAxis(i));
+            }
+        }
+    }
+
+    private static void roundTicks(org.jfree.chart.axis.ValueAxis a) {
+        if (!(a instanceof org.jfree.chart.axis.NumberAxis n) || a.getClass() != org.jfree.chart.axis.NumberAxis.class) {
+            return;
+        }
+        double span = n.getRange().getLength();
+        if (!(span > 0) || !Double.isFinite(span)) {
+            return;
+        }
+        double step = Math.pow(10, Math.floor(Math.log10(span / MAX_TICKS)));
+        for (double m : new double[]{1, 2, 2.5, 5, 10, 20, 25, 50, 100}) {
+            if (span / (step * m) <= MAX_TICKS) {
+                step *= m;
+                break;
+            }
+        }
+        java.text.DecimalFormat f = new java.text.DecimalFormat(Math.abs(step) >= 1e-4 ? "0.####" : "0.##E0",
+                java.text.DecimalFormatSymbols.getInstance(java.util.Locale.ROOT));
+        n.setTickUnit(new org.jfree.chart.axis.NumberTickUnit(step, f), false, true);
     }
 
     /** A standalone SVG file. */
@@ -61,6 +111,7 @@ public final class ChartRenderer {
     }
 
     public static byte[] png(JFreeChart chart, int width, int height) {
+        limitTicks(chart);
         BufferedImage img = new BufferedImage(width, height, BufferedImage.TYPE_INT_RGB);
         Graphics2D g = img.createGraphics();
         try {

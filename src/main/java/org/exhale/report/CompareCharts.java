@@ -255,8 +255,12 @@ final class CompareCharts {
         }
         if (Double.isFinite(xlo)) {
             // room on both sides: markers at the ends are not cut, the labels fit
-            double pad = Math.max(0.05 * (xhi - xlo), Math.max(0.01 * Math.abs(xhi), 0.05));
-            p.xRange(xlo - pad, xhi + 2 * pad);
+            // never magnify differences below the resolution: the axis spans at least 5 % of the duration
+            // and 1 min, whatever the spread of the options
+            double span = Math.max(xhi - xlo, Math.max(0.05 * Math.abs(xhi), 1.0));
+            double mid = (xlo + xhi) / 2;
+            double pad = 0.08 * span;
+            p.xRange(mid - span / 2 - pad, mid + span / 2 + 2 * pad);
         }
         p.range(0, Math.max(1.25, hiMargin * 1.12));
         XYPlot plot = p.build();
@@ -271,19 +275,24 @@ final class CompareCharts {
         // the options on the front are named; options at the same point share one label
         Map<String, List<Option>> groups = new LinkedHashMap<>();
         for (Option o : frontOpts) {
-            groups.computeIfAbsent(o.durationS() + "/" + ReportText.sig(o.smallestMargin(), 9), k -> new ArrayList<>()).add(o);
+            groups.computeIfAbsent(Math.round(o.durationS()) + "/" + org.exhale.studies.Compare.resolved(o.smallestMargin()),
+                    k -> new ArrayList<>()).add(o);
         }
         if (groups.size() <= MAX_NAMED_POINTS) {
             for (List<Option> g : groups.values()) {
+                g.sort(Comparator.comparingInt(Option::number));
                 StringBuilder s = new StringBuilder();
                 for (int i = 0; i < g.size() && i < 4; i++) {
-                    s.append(i > 0 ? " " : "").append(g.get(i).name());
+                    s.append(i > 0 ? ", " : "").append(g.get(i).name());
                 }
                 if (g.size() > 4) {
-                    s.append(" +").append(g.size() - 4);
+                    s.append(" and ").append(g.size() - 4).append(" more");
                 }
-                if (g.stream().anyMatch(o -> o.rank() == 1)) {
-                    s.append(" (best)");
+                boolean first = g.stream().anyMatch(o -> o.rank() == 1);
+                if (g.size() > 1) {
+                    s.append(first ? " (tied first)" : " (tied)");
+                } else if (first) {
+                    s.append(" (first)");
                 }
                 XYTextAnnotation a = new XYTextAnnotation(s.toString(), g.get(0).durationS() / 60, g.get(0).smallestMargin());
                 a.setFont(ChartStyle.NOTE);
@@ -294,7 +303,9 @@ final class CompareCharts {
             }
         }
         int feasible = all.getItemCount();
-        String counts = feasible + " feasible, " + frontOpts.size() + " on the Pareto front, " + badCount + " infeasible"
+        String counts = feasible + " feasible, " + groups.size() + " point" + (groups.size() == 1 ? "" : "s")
+                + " on the Pareto front (" + frontOpts.size() + " option" + (frontOpts.size() == 1 ? "" : "s") + "), "
+                + badCount + " infeasible"
                 + (badUnplaced > 0 ? " (" + badUnplaced + " without a lower bound, not drawn)" : "");
         JFreeChart c = ChartStyle.chart("Duration against the smallest margin", plot, subtitle, counts);
         return new Figure("compare-pareto", "Duration against the smallest margin",
@@ -551,6 +562,21 @@ final class CompareCharts {
         if (!xs.isEmpty()) {
             double pad = Math.max(0.04 * (xs.get(xs.size() - 1) - xs.get(0)), 1e-9 + 0.01 * Math.abs(xs.get(0)));
             p.xRange(xs.get(0) - pad, xs.get(xs.size() - 1) + pad);
+        }
+        // the duration axis spans at least 5 % of the longest duration and 1 min: differences below the
+        // tool's resolution are not magnified into slopes
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (XYSeries ser : List.of(plan, bound, bad)) {
+            for (int k = 0; k < ser.getItemCount(); k++) {
+                lo = Math.min(lo, ser.getY(k).doubleValue());
+                hi = Math.max(hi, ser.getY(k).doubleValue());
+            }
+        }
+        if (Double.isFinite(lo)) {
+            double span = Math.max(hi - lo, Math.max(0.05 * Math.abs(hi), 1.0));
+            double mid = (lo + hi) / 2;
+            p.range(Math.max(0, mid - 0.6 * span), mid + 0.6 * span);
         }
         XYPlot plot = p.build();
         JFreeChart c = ChartStyle.chart("Planned duration over the varied value", plot, subtitle);

@@ -41,9 +41,13 @@ final class HtmlReport {
             figure svg{display:block;width:100%;height:auto}
             figcaption{color:var(--muted);font-size:.92rem;margin-top:6px}
             figcaption a{color:var(--accent)}
-            .wide{overflow-x:auto} td.why{min-width:28em}
+            .wide{overflow-x:auto} td.why{min-width:16em}
             pre{background:var(--band);padding:10px;overflow:auto;font-size:.85rem}
             nav a{color:var(--accent);margin-right:14px}
+            .sheet{border:2px solid var(--accent);padding:2px 18px 8px;margin:10px 0 24px}
+            .sheet h2{margin-top:14px}
+            table.figures th{width:14em}
+
             footer{color:var(--muted);font-size:.85rem;margin-top:40px}
             @media print{figure{break-inside:avoid}}
             """;
@@ -74,21 +78,20 @@ final class HtmlReport {
         b.append("<h1>").append(escape(name)).append("</h1>\n");
         b.append("<p class=\"sub\">exhale report of the folder <code>").append(escape(folderName()))
                 .append("</code>: ").append(escape(kind())).append("</p>\n");
-        f.summary().ifPresent(s -> summary(s, binding));
-        f.plan().ifPresent(this::plan);
-        if (f.robust().isEmpty()) {
-            f.recipe().ifPresent(this::recipe);
+        RecipeSheet sheet = RecipeSheet.of(f);
+        if (sheet != null) {
+            b.append(sheet.html());
+        } else if (f.plan().isPresent()) {
+            f.plan().ifPresent(this::planOutcome);
         }
-        f.fit().ifPresent(this::fit);
-        if (f.compare().isPresent() || f.options().isPresent()) {
-            compare();
-        }
-        f.robust().ifPresent(this::robust);
-        if (f.robust().isPresent()) {
-            // the recipe the samples were run with, after the study
-            f.recipe().ifPresent(this::recipe);
-        }
-        cautions();
+        f.summary().ifPresent(this::glance);
+        f.compare().ifPresent(c -> {
+            if (c.path("best").isTextual() && !c.path("best").asText().isBlank()) {
+                boolean none = c.path("best").asText().startsWith("No option");
+                b.append(none ? "<p class=\"verdict bad\">" : "<p class=\"verdict ok\">").append(escape(c.path("best").asText()))
+                        .append("</p>\n");
+            }
+        });
         if (!figures.isEmpty()) {
             b.append("<h2 id=\"charts\">Charts</h2>\n");
             for (Figure fig : figures) {
@@ -102,6 +105,23 @@ final class HtmlReport {
                 b.append("</figcaption>\n</figure>\n");
             }
         }
+        b.append("<h2 id=\"details\">Details</h2>\n");
+        f.summary().ifPresent(s -> summary(s, binding));
+        f.plan().ifPresent(this::plan);
+        if (f.robust().isEmpty() && sheet == null) {
+            f.recipe().ifPresent(this::recipe);
+        }
+        f.fit().ifPresent(this::fit);
+        if (f.compare().isPresent() || f.options().isPresent()) {
+            compare();
+        }
+        f.robust().ifPresent(this::robust);
+        if (f.robust().isPresent()) {
+            // the recipe the samples were run with, after the study
+            f.recipe().ifPresent(this::recipe);
+        }
+        f.summary().ifPresent(this::corners);
+        cautions();
         b.append("<footer>Written by <code>exhale report</code> from the files in this folder; ")
                 .append("the charts are also in <code>charts/</code> as SVG and PNG.</footer>\n");
         b.append("</main>\n</body>\n</html>\n");
@@ -133,25 +153,75 @@ final class HtmlReport {
 
     // ---------------------------------------------------------------- simulate / plan
 
-    private void summary(JsonNode s, String binding) {
+    /** The verdict and the few figures a reader looks for first, before the charts. */
+    private void glance(JsonNode s) {
         JsonNode met = s.path("all_limits_met");
-        if (met.isBoolean()) {
+        if (f.plan().isEmpty() && met.isBoolean()) {
             b.append(met.asBoolean() ? "<p class=\"verdict ok\">✓ All limits met</p>\n"
                     : "<p class=\"verdict bad\">✗ A limit is violated</p>\n");
         }
-        b.append("<h2 id=\"headline\">Headline figures</h2>\n");
-        scalars(s, Set.of("case", "case_name", "all_limits_met"));
+        b.append("<h2 id=\"headline\">At a glance</h2>\n<table class=\"figures\">\n");
+        if (s.has("time_to_target_s")) {
+            row("Time to the residue target", Readable.time(s.path("time_to_target_s").asDouble(Double.NaN)));
+        }
+        if (s.path("recipe_duration_s").isNumber()) {
+            row("Recipe duration", Readable.time(s.path("recipe_duration_s").asDouble()));
+        }
+        if (s.path("final_unconverted").isNumber()) {
+            row("Unconverted polymer at the end", Readable.percent(s.path("final_unconverted").asDouble()));
+        }
+        if (s.path("max_wafer_temperature_C").isNumber()) {
+            JsonNode c = s.path("margins").path("ceiling");
+            double c0 = org.exhale.PhysicalConstants.ZERO_CELSIUS_K;
+            String text = Readable.celsius(s.path("max_wafer_temperature_C").asDouble() + c0);
+            if (c.path("actual").isNumber() && c.path("actual").asDouble() - s.path("max_wafer_temperature_C").asDouble() > 0.05) {
+                text += "; the ceiling is checked on the corner's setpoint (setpoint + spread), "
+                        + Readable.celsius(c.path("actual").asDouble() + c0);
+            }
+            row("Highest wafer temperature", text);
+        }
+        if (s.path("peak_excess_pressure_Pa").isNumber()) {
+            row("Peak excess pressure", Readable.value(s.path("peak_excess_pressure_Pa").asDouble(), "Pa") + " at "
+                    + Readable.time(s.path("peak_excess_pressure_time_s").asDouble(Double.NaN)));
+        }
+        if (s.path("gas_regime").isTextual()) {
+            row("Gas regime", s.path("gas_regime").asText());
+        }
+        if (s.path("peak_chamber_ppm").isNumber()) {
+            row("Peak products in the exhaust", Readable.number(s.path("peak_chamber_ppm").asDouble()) + " ppm");
+        }
+        String t = RecipeSheet.tightest(s.path("margins"));
+        if (t != null) {
+            row("Tightest limit", t);
+        }
+        b.append("</table>\n");
         warnings(s.path("warnings"), "Warnings");
+    }
+
+    private void summary(JsonNode s, String binding) {
         if (s.path("margins").isObject() && s.path("margins").size() > 0) {
-            b.append("<h2 id=\"margins\">Margins to the limits</h2>\n");
-            b.append("<p>Ratio margins are allowed / worst actual (1 or more holds); the ceiling's is the headroom "
-                    + "in kelvin (0 or more holds).")
-                    .append(binding != null ? " The binding limit is marked." : "").append("</p>\n");
+            b.append("<h3 id=\"margins\">Margins to the limits</h3>\n");
+            b.append("<p>A limit's margin is allowed / actual, at the corner and time where it is worst: 1 or more "
+                    + "holds; above 1000 it is shown as “&gt; 1000”. The ceiling's is the headroom in kelvin "
+                    + "(0 or more holds). <em>Binding</em> limits set a step of the recipe; the <em>tightest</em> is "
+                    + "the smallest margin among the limits the recipe can change.</p>\n");
             margins(s.path("margins"), binding);
         }
+    }
+
+    private void corners(JsonNode s) {
         if (s.path("corners").isArray() && s.path("corners").size() > 0) {
-            b.append("<h3>Corners</h3>\n");
-            objectTable(s.path("corners"));
+            b.append("<h3>Corners</h3>\n<div class=\"wide\"><table>\n<tr><th>Corner</th><th>Offset</th><th>Gas regime</th>"
+                    + "<th>Time to target</th><th>Unconverted at the end</th><th>Peak pressure</th></tr>\n");
+            for (JsonNode c : s.path("corners")) {
+                b.append("<tr><td>").append(escape(c.path("corner").asText())).append("</td><td class=\"num\">")
+                        .append(escape(Readable.kelvin(c.path("offset_K").asDouble(0)))).append("</td><td>")
+                        .append(escape(c.path("gas_regime").asText(""))).append("</td><td class=\"num\">")
+                        .append(escape(Readable.time(c.path("time_to_target_s").asDouble(Double.NaN)))).append("</td><td class=\"num\">")
+                        .append(escape(Readable.percent(c.path("final_unconverted").asDouble(Double.NaN)))).append("</td><td class=\"num\">")
+                        .append(escape(Readable.value(c.path("peak_excess_pressure_Pa").asDouble(Double.NaN), "Pa"))).append("</td></tr>\n");
+            }
+            b.append("</table></div>\n");
         }
     }
 
@@ -235,29 +305,50 @@ final class HtmlReport {
         };
     }
 
-    private void margins(JsonNode m, String binding) {
-        b.append("<table>\n<tr><th>Limit</th><th>Status</th><th>Allowed</th><th>Worst actual</th><th>Margin</th>"
+    /** The limits that set a step of the plan (plan.json), empty without a plan. */
+    private Set<String> bindingLimits() {
+        Set<String> out = new LinkedHashSet<>();
+        f.plan().ifPresent(p -> p.path("binding").forEach(x -> {
+            for (String part : bindingText(x).split(";\\s*")) {
+                if (!part.isBlank()) {
+                    out.add(part.trim());
+                }
+            }
+        }));
+        return out;
+    }
+
+    private void margins(JsonNode m, String tightest) {
+        Set<String> binding = bindingLimits();
+        b.append("<table>\n<tr><th>Limit</th><th>Status</th><th>Margin</th><th>Allowed</th><th>Worst actual</th>"
                 + "<th>When</th><th>Corner</th><th>Dominant term or where read</th></tr>\n");
         for (Iterator<Map.Entry<String, JsonNode>> it = m.fields(); it.hasNext(); ) {
             Map.Entry<String, JsonNode> e = it.next();
             JsonNode g = e.getValue();
             String unit = g.path("unit").asText("");
+            String siUnit = unit.equals("C") ? "K" : unit;
+            double off = unit.equals("C") ? org.exhale.PhysicalConstants.ZERO_CELSIUS_K : 0;
             boolean holds = g.path("holds").asBoolean(true);
-            boolean isBinding = e.getKey().equals(binding);
+            boolean isBinding = binding.contains(e.getKey());
+            boolean isTightest = e.getKey().equals(tightest);
             String margin;
             if (g.has("headroom_K")) {
-                margin = g.path("headroom_K").isNumber() ? sig(g.path("headroom_K").asDouble(), 3) + " K headroom" : "n/a";
+                margin = g.path("headroom_K").isNumber() ? "headroom " + Readable.kelvin(g.path("headroom_K").asDouble()) : "n/a";
             } else {
                 JsonNode mv = g.path("margin");
-                margin = mv.isNumber() ? "×" + sig(mv.asDouble(), 4) : "never loaded";
+                margin = mv.isNumber() ? Readable.ratio(mv.asDouble()) : "not loaded";
             }
-            b.append(isBinding ? "<tr class=\"binding\">" : "<tr>")
-                    .append("<td>").append(escape(e.getKey())).append(isBinding ? " (binding)" : "").append("</td>")
+            double actual = g.path("actual").asDouble(Double.NaN);
+            String actualText = g.path("margin").isNumber() && g.path("margin").asDouble() > 1e6 ? "negligible"
+                    : Readable.value(actual + off, siUnit);
+            String tag = isBinding ? " (binding)" : isTightest ? " (tightest)" : "";
+            b.append(isBinding || isTightest ? "<tr class=\"binding\">" : "<tr>")
+                    .append("<td>").append(escape(e.getKey())).append(escape(tag)).append("</td>")
                     .append("<td class=\"").append(holds ? "ok\">holds" : "bad\">VIOLATED").append("</td>")
-                    .append("<td class=\"num\">").append(escape(num(g.path("allowed"), unit))).append("</td>")
-                    .append("<td class=\"num\">").append(escape(num(g.path("actual"), unit))).append("</td>")
                     .append("<td class=\"num\">").append(escape(margin)).append("</td>")
-                    .append("<td class=\"num\">").append(escape(value("time_s", g.path("time_s")))).append("</td>")
+                    .append("<td class=\"num\">").append(escape(Readable.value(g.path("allowed").asDouble(Double.NaN) + off, siUnit))).append("</td>")
+                    .append("<td class=\"num\">").append(escape(actualText)).append("</td>")
+                    .append("<td class=\"num\">").append(escape(Readable.time(g.path("time_s").asDouble(Double.NaN)))).append("</td>")
                     .append("<td>").append(escape(g.path("corner").asText(""))).append("</td>")
                     .append("<td>").append(escape(g.path("dominant").asText(g.path("evaluated_at").asText("")))).append("</td></tr>\n");
         }
@@ -319,30 +410,52 @@ final class HtmlReport {
         b.append("</ul>\n");
     }
 
+    /** An infeasible plan: what stopped it and what would help. */
+    private void planOutcome(JsonNode p) {
+        b.append("<section class=\"sheet\" id=\"recipe-sheet\">\n<h2>Plan</h2>\n");
+        JsonNode inf = p.path("infeasible");
+        b.append("<p class=\"verdict bad\">✗ No feasible recipe").append(inf.path("limit").isTextual()
+                ? escape(": the " + inf.path("limit").asText() + " limit") : "").append("</p>\n");
+        if (inf.path("reason").isTextual()) {
+            b.append("<p>").append(escape(capital(inf.path("reason").asText()))).append(".</p>\n");
+        }
+        if (inf.path("suggestion").isTextual()) {
+            b.append("<p>What would help: ").append(escape(inf.path("suggestion").asText())).append(".</p>\n");
+        }
+        b.append("</section>\n");
+    }
+
+    private static String capital(String s) {
+        return s.isEmpty() ? s : Character.toUpperCase(s.charAt(0)) + s.substring(1);
+    }
+
     private void plan(JsonNode p) {
-        b.append("<h2 id=\"plan\">Plan</h2>\n");
-        scalars(p, Set.of());
-        if (p.path("duration_s").isNumber() && p.path("lower_bound_s").isNumber()) {
+        b.append("<h3 id=\"plan\">How the plan was found</h3>\n<p>");
+        if (p.path("simulations").isNumber()) {
+            b.append(escape("The planner ran " + p.path("simulations").asText() + " simulations"
+                    + (p.path("planning_time_s").isNumber() ? " in " + Readable.time(p.path("planning_time_s").asDouble()) : "")
+                    + ". "));
+        }
+        if (p.path("duration_s").isNumber() && p.path("lower_bound_s").isNumber() && p.path("lower_bound_s").asDouble() > 0) {
             double d = p.path("duration_s").asDouble();
             double lb = p.path("lower_bound_s").asDouble();
-            b.append("<p>The plan takes ").append(escape(value("duration_s", p.path("duration_s"))))
-                    .append(p.path("lower_bound_rigorous").asBoolean(false)
-                            ? "; no recipe within the limits can be shorter than "
-                            : "; the lower bound (an estimate, not a guarantee) is ")
-                    .append(escape(value("lower_bound_s", p.path("lower_bound_s")))).append(" (")
-                    .append(escape(lb > 0 ? "plan / bound = " + sig(d / lb, 3) : "")).append(").</p>\n");
+            boolean rigorous = p.path("lower_bound_rigorous").asBoolean(false);
+            String ratio = Readable.time(d) + ", " + String.format(java.util.Locale.ROOT, "%.3f", d / lb) + " × that bound. ";
+            if (rigorous) {
+                b.append(escape("No recipe within the limits can reach the target sooner than " + Readable.time(lb)
+                        + "; the plan takes " + ratio));
+            } else {
+                double ceilingOnly = p.path("ceiling_only_lower_bound_s").asDouble(Double.NaN);
+                b.append(escape("The lower bound is an estimate here, not a guarantee: " + Readable.time(lb)
+                        + "; the plan takes " + ratio
+                        + (Double.isFinite(ceilingOnly) ? "The bound from the ceiling alone, " + Readable.time(ceilingOnly)
+                        + ", is rigorous." : "")));
+            }
         }
+        b.append("</p>\n");
         if (p.path("margins").isObject() && f.summary().map(s -> !s.has("margins")).orElse(true)) {
             b.append("<h3>Margins of the plan</h3>\n");
             margins(p.path("margins"), null);
-        }
-        JsonNode binding = p.path("binding");
-        if (binding.isArray() && binding.size() > 0 && f.recipe().isEmpty()) {
-            b.append("<h3>Binding limit per step</h3>\n<ol>\n");
-            for (JsonNode x : binding) {
-                b.append("<li>").append(escape(bindingText(x))).append("</li>\n");
-            }
-            b.append("</ol>\n");
         }
         warnings(p.path("warnings"), "Plan warnings");
         notes(p.path("notes"), "Planner notes");
@@ -416,18 +529,19 @@ final class HtmlReport {
         b.append("<h2 id=\"compare\">Options compared</h2>\n");
         JsonNode c = f.compare().orElse(null);
         CompareCharts.CompareData d = CompareCharts.data(f);
-        if (c != null && c.path("best").isTextual() && !c.path("best").asText().isBlank()) {
-            b.append("<p class=\"verdict ok\">").append(escape(c.path("best").asText())).append("</p>\n");
-        }
         if (!d.isEmpty()) {
             long feasible = d.options().stream().filter(CompareCharts.Option::feasible).count();
             long front = d.options().stream().filter(CompareCharts.Option::pareto).count();
             if (feasible == 0) {
                 b.append("<p class=\"verdict bad\">✗ No option is feasible</p>\n");
             }
-            b.append("<p>").append(feasible).append(" of ").append(d.options().size()).append(" options are feasible; ")
-                    .append(front).append(" are on the Pareto front of duration against the smallest margin. Varied: ")
-                    .append(escape(String.join(", ", d.labels()))).append(".</p>\n");
+            long points = d.options().stream().filter(CompareCharts.Option::pareto)
+                    .map(o -> Math.round(o.durationS()) + "/" + org.exhale.studies.Compare.resolved(o.smallestMargin()))
+                    .distinct().count();
+            b.append("<p>").append(feasible).append(" of ").append(d.options().size()).append(" options are feasible; the ")
+                    .append("Pareto front of duration against the smallest margin has ").append(points)
+                    .append(points == 1 ? " point" : " points").append(" (").append(front).append(front == 1 ? " option" : " options")
+                    .append("). Varied: ").append(escape(String.join(", ", d.labels()))).append(".</p>\n");
         }
         if (c != null) {
             if (!c.path("complete").asBoolean(true)) {
@@ -435,7 +549,10 @@ final class HtmlReport {
                         .append(" of ").append(escape(c.path("options_total").asText("?")))
                         .append(" options were planned.</p>\n");
             }
-            scalars(c, Set.of("best", "smallest_margin_note"));
+            b.append("<p>").append(escape(c.path("options_done").asText("?") + " of " + c.path("options_total").asText("?")
+                    + " options planned" + (c.path("wall_time_s").isNumber() ? " in " + Readable.time(c.path("wall_time_s").asDouble()) : "")
+                    + (c.path("threads").isNumber() ? " on " + c.path("threads").asText() + " threads" : "")
+                    + (c.path("case").isTextual() ? ", from the case file " + c.path("case").asText() : "") + ".")).append("</p>\n");
             if (c.path("smallest_margin_note").isTextual()) {
                 b.append("<p>Smallest margin: ").append(escape(c.path("smallest_margin_note").asText())).append(".</p>\n");
             }
@@ -446,12 +563,17 @@ final class HtmlReport {
 
     /** Columns of options.csv left out of the page's table (they stay in the file); the reason joins the failing limit. */
     private static final Set<String> OPTION_COLUMNS_LEFT_OUT = Set.of("total_with_cooldown_s", "bound_rigorous", "steps",
-            "infeasible_reason");
+            "infeasible_reason", "lower_bound_s", "peak_pressure_Pa");
 
     private void optionsTable(CsvTable t) {
-        List<String> cols = t.header().stream().filter(h -> !OPTION_COLUMNS_LEFT_OUT.contains(h)).toList();
-        b.append("<h3>Ranked options</h3>\n<p>Ranked by planned duration, infeasible options last; every column is in "
-                + "<code>options.csv</code>.</p>\n<div class=\"wide\"><table>\n<tr>");
+        // the page keeps the columns a reader compares; the per-limit margins and the rest stay in options.csv
+        List<String> cols = t.header().stream().filter(h -> !OPTION_COLUMNS_LEFT_OUT.contains(h) && !h.startsWith("margin_"))
+                .toList();
+        String rule = f.compare().map(c -> c.path("ranking").asText("")).orElse("");
+        b.append("<h3>Ranked options</h3>\n<p>Ranked by ").append(escape(rule.isEmpty()
+                        ? "planned duration, infeasible options last" : rule + "; infeasible options last"))
+                .append(". Every column, with a margin per limit, is in <code>options.csv</code>.</p>\n"
+                        + "<div class=\"wide\"><table>\n<tr>");
         for (String h : cols) {
             b.append("<th>").append(escape(optionHeader(h))).append("</th>");
         }
@@ -484,7 +606,7 @@ final class HtmlReport {
             case "total_with_cooldown_s" -> "With cool-down";
             case "lower_bound_s" -> "Lower bound";
             case "bound_ratio" -> "Plan / bound";
-            case "smallest_margin_limit" -> "Tightest limit";
+            case "smallest_margin_limit" -> "Limit with the smallest margin";
             case "infeasible_limit" -> "Why infeasible";
             case "ceiling_headroom_K" -> "Ceiling headroom";
             case "peak_pressure_Pa" -> "Peak pressure";
@@ -506,7 +628,13 @@ final class HtmlReport {
             return SiScale.of(Math.abs(x), "Pa").format(x);
         }
         if (h.endsWith("_K")) {
-            return ReportText.plain(x, 4) + " K";
+            return Readable.kelvin(x);
+        }
+        if (h.equals("bound_ratio")) {
+            return String.format(java.util.Locale.ROOT, "%.3f", x);
+        }
+        if (h.equals("smallest_margin") || h.startsWith("margin_")) {
+            return Readable.ratio(x);
         }
         return tidy(v);
     }
@@ -518,8 +646,11 @@ final class HtmlReport {
         JsonNode any = j.path("any_limit");
         if (any.path("probability").isNumber()) {
             double p = any.path("probability").asDouble();
+            int n = j.path("samples_done").asInt(0);
             b.append(p == 0 ? "<p class=\"verdict ok\">" : "<p class=\"verdict bad\">")
-                    .append(escape("Any limit violated in " + sig(p * 100, 3) + " ± "
+                    .append(escape(p == 0 && n > 0
+                            ? "✓ No limit violated in " + n + " samples (95 % upper bound " + sig(Math.min(100, 300.0 / n), 2) + " %)"
+                            : "Some limit violated in " + sig(p * 100, 3) + " ± "
                             + sig(any.path("standard_error").asDouble(0) * 100, 2) + " % of samples")).append("</p>\n");
         }
         if (!j.path("complete").asBoolean(true)) {

@@ -43,7 +43,7 @@ public record Report(String html, List<Figure> figures, Map<String, String> svg,
             svg.put((String) d[0], "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + d[1] + "\n");
             png.put((String) d[0], (byte[]) d[2]);
         }
-        String binding = folder.summary().map(s -> BakeCharts.binding(s.path("margins"))).orElse(null);
+        String binding = folder.summary().map(s -> RecipeSheet.tightestName(s.path("margins"))).orElse(null);
         String html = HtmlReport.render(folder, figures, inline, chartsHref, binding);
         return new Report(html, figures, svg, png);
     }
@@ -51,7 +51,9 @@ public record Report(String html, List<Figure> figures, Map<String, String> svg,
     static List<Figure> figures(RunFolder folder) {
         List<Figure> out = new ArrayList<>();
         folder.history().ifPresent(h -> out.addAll(new BakeCharts(h,
-                folder.summary().map(s -> s.path("margins")).orElse(null), folder.caseName()).all()));
+                folder.summary().map(s -> s.path("margins")).orElse(null),
+                folder.summary().map(s -> s.path("corners")).orElse(null), folder.caseName())
+                .names(folder.summary().map(s -> s.path("components")).orElse(null)).all()));
         PlanCharts.lowerBound(folder).ifPresent(out::add);
         if (folder.fit().isPresent() || folder.fitTable().isPresent() || folder.isoconversional().isPresent()) {
             out.addAll(new FitCharts(folder).all());

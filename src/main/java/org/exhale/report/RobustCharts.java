@@ -54,6 +54,11 @@ final class RobustCharts {
     static final String HEADROOM = "ceiling_headroom_K";
     static final String MARGIN_SUFFIX = "_margin";
 
+    /** The per-limit margin columns of samples.csv (its "smallest_margin" column is not a limit). */
+    private List<String> limitMarginColumns() {
+        return s.columns("", MARGIN_SUFFIX).stream().filter(c -> !c.equals("smallest_margin")).toList();
+    }
+
     private final RunFolder f;
     private final JsonNode j;
     private final CsvTable s;
@@ -71,10 +76,10 @@ final class RobustCharts {
         if (s != null && s.has(TIME)) {
             time().ifPresent(out::add);
         }
-        if (s != null && !s.columns("", MARGIN_SUFFIX).isEmpty()) {
+        if (s != null && !limitMarginColumns().isEmpty()) {
             margins().ifPresent(out::add);
         }
-        if (s != null && !s.columns("", MARGIN_SUFFIX).isEmpty()) {
+        if (s != null && !limitMarginColumns().isEmpty()) {
             tightest().ifPresent(out::add);
         }
         if (s != null && s.has(HEADROOM)) {
@@ -225,7 +230,7 @@ final class RobustCharts {
      * over that limit's own range) scaled to the row's height, and the limit line at margin 1.
      */
     private java.util.Optional<Figure> margins() {
-        List<String> cols = s.columns("", MARGIN_SUFFIX);
+        List<String> cols = limitMarginColumns();
         List<String> names = new ArrayList<>();
         List<double[]> values = new ArrayList<>();
         List<String> never = new ArrayList<>();
@@ -332,7 +337,7 @@ final class RobustCharts {
     private java.util.Optional<Figure> tightest() {
         String best = null;
         double bestMedian = Double.POSITIVE_INFINITY;
-        for (String col : s.columns("", MARGIN_SUFFIX)) {
+        for (String col : limitMarginColumns()) {
             double[] v = finite(col, x -> x);
             if (v.length == 0) {
                 continue;
@@ -422,6 +427,11 @@ final class RobustCharts {
         JsonNode any = j.path("any_limit");
         double top = 0;
         int samples = j.path("samples_done").asInt(s == null ? 0 : s.size());
+        boolean none = any.path("probability").isNumber() && any.path("probability").asDouble() == 0
+                && rows.stream().allMatch(v -> v.path("violations").asInt(0) == 0);
+        if (none) {
+            rows.clear(); // one bar says it: the same bound for every limit would only repeat it
+        }
         for (JsonNode v : rows) {
             double p = v.path("probability").asDouble(0) * 100;
             double se = v.path("standard_error").asDouble(0) * 100;
@@ -440,7 +450,7 @@ final class RobustCharts {
         if (any.path("probability").isNumber()) {
             double p = any.path("probability").asDouble() * 100;
             double se = any.path("standard_error").asDouble(0) * 100;
-            double up = p == 0 && samples > 0 ? 300.0 / samples : Double.NaN;
+            double up = p == 0 && samples > 0 ? Math.min(100, 300.0 / samples) : Double.NaN;
             String name = "any limit: " + (Double.isNaN(up) ? ReportText.sig(p, 3) + " ± " + ReportText.sig(se, 2) + " %"
                     : "none of " + samples + ", < " + ReportText.sig(up, 2) + " %");
             d.add(p, se, p0, name);
@@ -456,8 +466,9 @@ final class RobustCharts {
         CategoryPlot plot = new CategoryPlot(d, x, y, r);
         bars(plot, r);
         r.setDefaultItemLabelsVisible(false);
-        JFreeChart chart = ChartStyle.chart("Probability of violating each limit", plot, subtitle, samplesNote());
-        return new Figure("robust-violation", "Probability of violating each limit",
+        String title = none ? "No violations in " + samples + " samples" : "Probability of violating each limit";
+        JFreeChart chart = ChartStyle.chart(title, plot, subtitle, samplesNote());
+        return new Figure("robust-violation", title,
                 "The share of samples that violate each limit, with its binomial standard error as an error bar; "
                         + "where no sample violated a limit the light bar gives the 95 % upper bound (three over the "
                         + "number of samples).", chart);

@@ -13,10 +13,12 @@ import org.exhale.simulation.Margin;
 
 /**
  * Plans every combination of the varied values (the first key varies slowest) and ranks the
- * options: feasible ones by planned duration (ties: the larger smallest margin first), then the
- * infeasible ones in their original order. The Pareto front is taken over the feasible options,
- * minimising duration and maximising the smallest margin (margins equal to nine significant digits
- * tie, so that round-off does not decide).
+ * options. The ranking rule: feasible options by planned duration, then by the larger smallest
+ * margin, both as resolved — durations to the tool's time step, margins to three significant
+ * digits, the precision they are shown with — so that differences below the resolution never
+ * rank; options equal in both are <em>tied</em>, share a rank and keep their input order. The
+ * infeasible options follow in input order. The Pareto front is taken over the feasible options,
+ * minimising duration and maximising the smallest margin, on the same resolved values.
  *
  * <p>The smallest margin is the smallest ratio margin (allowed / actual) of the verified plan;
  * the ceiling is a headroom in kelvin and is reported beside it, not mixed in, because a planner
@@ -133,19 +135,43 @@ public final class Compare {
     public static List<Option> rank(List<Option> options) {
         List<Option> out = new ArrayList<>(options);
         out.sort(Comparator.comparing((Option o) -> !o.feasible())
-                .thenComparingDouble(o -> o.feasible() ? o.durationS() : 0)
-                .thenComparingDouble(o -> o.feasible() ? -nine(o.smallestMargin()) : 0)
-                .thenComparingDouble(o -> o.feasible() && Double.isFinite(o.peakPressurePa()) ? o.peakPressurePa() : 0)
+                .thenComparingDouble(o -> o.feasible() ? durationResolved(o) : 0)
+                .thenComparingDouble(o -> o.feasible() ? -resolved(o.smallestMargin()) : 0)
                 .thenComparingInt(Option::index));
         return out;
     }
 
-    /** A value to nine significant digits (infinite values kept). */
-    static double nine(double v) {
+    /** Significant digits a margin is resolved to: the precision it is shown with. */
+    public static final int MARGIN_DIGITS = 3;
+
+    /** Time resolution durations are compared at [s] (plans are already rounded to the tool's time step). */
+    public static final double DURATION_RESOLUTION_S = 1;
+
+    /** A margin to {@link #MARGIN_DIGITS} significant digits (infinite values kept). */
+    public static double resolved(double v) {
         if (!Double.isFinite(v) || v == 0) {
             return v;
         }
-        return new java.math.BigDecimal(v).round(new java.math.MathContext(9)).doubleValue();
+        return new java.math.BigDecimal(v).round(new java.math.MathContext(MARGIN_DIGITS)).doubleValue();
+    }
+
+    static double durationResolved(Option o) {
+        return Math.round(o.durationS() / DURATION_RESOLUTION_S) * DURATION_RESOLUTION_S;
+    }
+
+    /** Whether two feasible options are tied: equal duration and smallest margin as resolved. */
+    public static boolean tied(Option a, Option b) {
+        return a.feasible() && b.feasible() && durationResolved(a) == durationResolved(b)
+                && resolved(a.smallestMargin()) == resolved(b.smallestMargin());
+    }
+
+    /** The shared rank of each option of a ranked list: tied options have the rank of the first of them. */
+    public static int[] ranks(List<Option> ranked) {
+        int[] r = new int[ranked.size()];
+        for (int i = 0; i < ranked.size(); i++) {
+            r[i] = i > 0 && tied(ranked.get(i - 1), ranked.get(i)) ? r[i - 1] : i + 1;
+        }
+        return r;
     }
 
     /**
@@ -164,10 +190,12 @@ public final class Compare {
                 if (b == a || !b.feasible()) {
                     continue;
                 }
-                double ma = nine(a.smallestMargin());
-                double mb = nine(b.smallestMargin());
-                boolean noWorse = b.durationS() <= a.durationS() && mb >= ma;
-                boolean better = b.durationS() < a.durationS() || mb > ma;
+                double ma = resolved(a.smallestMargin());
+                double mb = resolved(b.smallestMargin());
+                double da = durationResolved(a);
+                double db = durationResolved(b);
+                boolean noWorse = db <= da && mb >= ma;
+                boolean better = db < da || mb > ma;
                 if (noWorse && better) {
                     dominated = true;
                     break;

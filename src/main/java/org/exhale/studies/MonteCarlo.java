@@ -227,8 +227,8 @@ public final class MonteCarlo {
      * @param margins        per limit (aligned with the study's limit names): the ratio margin, or the
      *                       ceiling headroom [K]; NaN when the sample has no such margin
      * @param holds          per limit, whether it holds
-     * @param slack          per limit, ln(allowed / actual): 0 at the limit, below 0 violated (the
-     *                       ceiling on absolute temperature), so that limits of every kind compare
+     * @param slack          per ratio limit, ln(allowed / actual): 0 at the limit, below 0 violated;
+     *                       NaN for the ceiling, which is followed on its own as headroom in K
      */
     public record Outcome(int index, double[] values, double timeToTargetS, double[] margins, boolean[] holds,
                           double[] slack) {
@@ -241,7 +241,7 @@ public final class MonteCarlo {
             return true;
         }
 
-        /** The limit with the smallest slack, as an index, or −1. */
+        /** The tightest limit: the smallest ratio margin (allowed/actual), as an index, or −1. */
         public int tightest() {
             int best = -1;
             for (int i = 0; i < slack.length; i++) {
@@ -255,6 +255,11 @@ public final class MonteCarlo {
         public double smallestSlack() {
             int t = tightest();
             return t < 0 ? Double.POSITIVE_INFINITY : slack[t];
+        }
+
+        /** The smallest ratio margin allowed/actual (the tightest limit's), +∞ when none is loaded. */
+        public double smallestMargin() {
+            return Math.exp(smallestSlack());
         }
     }
 
@@ -279,7 +284,7 @@ public final class MonteCarlo {
             }
             m[i] = g.margin();
             h[i] = g.holds();
-            s[i] = slack(g);
+            s[i] = g.headroom() ? Double.NaN : slack(g);
         }
         return new Outcome(index, v, r.timeToTargetS(), m, h, s);
     }

@@ -137,7 +137,7 @@ public final class RobustStudy {
             double[] per = new double[limits.size()];
             for (int l = 0; l < limits.size(); l++) {
                 final int ll = l;
-                per[l] = SampleStatistics.spearman(x, out.stream().mapToDouble(o -> o.slack()[ll]).toArray());
+                per[l] = SampleStatistics.spearman(x, out.stream().mapToDouble(o -> o.margins()[ll]).toArray());
             }
             sens.add(new Sensitivity(ps.get(p).name(), SampleStatistics.spearman(x, smallest),
                     SampleStatistics.spearman(x, t), per));

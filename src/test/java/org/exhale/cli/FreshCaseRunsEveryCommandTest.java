@@ -45,6 +45,19 @@ class FreshCaseRunsEveryCommandTest {
             assertEquals(Main.OK, Main.execute(r), String.join(" ", r) + " on a fresh '" + kind + "' case");
         }
         assertTrue(Files.exists(dir.resolve("robust/robust.json")));
+        // robust's tightest limit is a ratio margin (allowed/actual): the ceiling, in K, is followed apart
+        List<String> samples = Files.readAllLines(dir.resolve("robust/samples.csv"));
+        List<String> head = List.of(samples.get(0).split(","));
+        assertTrue(head.contains("tightest_limit") && head.contains("smallest_margin"), samples.get(0));
+        for (String row : samples.subList(1, samples.size())) {
+            assertTrue(!row.split(",")[head.indexOf("tightest_limit")].equals("ceiling"), row);
+        }
+        if (!dense) {
+            assertEquals(Main.OK, Main.execute("report", dir.resolve("robust").toString(), "-q"));
+            // seed 1, two samples of the fresh line case: no limit is violated, and the page and chart say so
+            assertTrue(Files.readString(dir.resolve("robust/charts/robust-violation.svg")).contains("No violations in 2 samples"));
+            assertTrue(Files.readString(dir.resolve("robust/report.html")).contains("No limit violated in 2 samples"));
+        }
         assertTrue(Files.readString(dir.resolve("sim/summary.json")).contains("\"chamber\""), "the exhaust is checked");
     }
 }

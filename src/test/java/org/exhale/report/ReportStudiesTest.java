@@ -84,7 +84,7 @@ class ReportStudiesTest {
                 "compare-pareto", List.of("feasible option", "Pareto front (shortest for its margin)",
                         "infeasible: no plan (drawn at its lower bound, in the band below margin 1)",
                         "Planned duration to the residue target [min]", "Smallest margin, allowed / actual [–]",
-                        "margin 1: the limit", "2 feasible, 1 on the Pareto front, 2 infeasible"),
+                        "margin 1: the limit", "2 feasible, 1 point on the Pareto front (1 option), 2 infeasible"),
                 "compare-map", List.of("limits.safety_factor [–]", "limits.ceiling [°C]", "Planned duration [min]",
                         "infeasible", "1.5", "2.5", "380", "400"));
         for (Map.Entry<String, List<String>> e : cmp.entrySet()) {

@@ -84,9 +84,9 @@ class CompareTest {
         assertTrue(json.contains("Predictions are estimates"));
         assertTrue(Files.exists(out.resolve("recipes/option-1.yaml")));
         // The folder is now in use: without --force it is refused (exit 2).
-        assertEquals(Main.BAD_INPUT, Main.execute("compare", POROUS.toString(), "--vary", "wafer.spread=1K",
+        assertEquals(Main.BAD_INPUT, org.exhale.cli.Quiet.execute("compare", POROUS.toString(), "--vary", "wafer.spread=1K",
                 "-o", out.toString(), "-q"));
-        assertEquals(Main.BAD_INPUT, Main.execute("compare", POROUS.toString(), "--vary", "cap.porosty=0.2",
+        assertEquals(Main.BAD_INPUT, org.exhale.cli.Quiet.execute("compare", POROUS.toString(), "--vary", "cap.porosty=0.2",
                 "-o", tmp.resolve("x").toString(), "-q"));
         assertFalse(Files.exists(tmp.resolve("x")));
     }

@@ -45,11 +45,11 @@ class RobustCommandTest {
 
     @Test
     void badArgumentsAreExitTwo(@TempDir Path tmp) {
-        assertEquals(Main.BAD_INPUT, Main.execute("robust", "data/demo/porous-line.yaml", "--samples", "10",
+        assertEquals(Main.BAD_INPUT, org.exhale.cli.Quiet.execute("robust", "data/demo/porous-line.yaml", "--samples", "10",
                 "-o", tmp.resolve("x").toString(), "-q"));
-        assertEquals(Main.BAD_INPUT, Main.execute("robust", UNCERTAIN.toString(), "--samples", "1",
+        assertEquals(Main.BAD_INPUT, org.exhale.cli.Quiet.execute("robust", UNCERTAIN.toString(), "--samples", "1",
                 "-o", tmp.resolve("y").toString(), "-q"));
-        assertEquals(Main.BAD_INPUT, Main.execute("robust", UNCERTAIN.toString(), "--samples", "10", "--quantile", "1.5",
+        assertEquals(Main.BAD_INPUT, org.exhale.cli.Quiet.execute("robust", UNCERTAIN.toString(), "--samples", "10", "--quantile", "1.5",
                 "-o", tmp.resolve("z").toString(), "-q"));
         assertFalse(Files.exists(tmp.resolve("x")));
     }
