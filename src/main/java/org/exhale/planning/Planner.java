@@ -234,6 +234,8 @@ public final class Planner {
         return diagnose(bound, rigorous, bestEval);
     }
 
+    /** The rider in use, whose trial segments count among the simulations. */
+    private Rider rider;
     /** The closed-loop ride's own time to target (NaN until ridden). */
     private double rideS = Double.NaN;
 
@@ -259,6 +261,7 @@ public final class Planner {
             gasScale = peak > 0 && Double.isFinite(peak) ? peak / total : 1;
         }
         Rider rider = new Rider(bake, tool, capK, regime, gasScale);
+        this.rider = rider;
         double boundS = bound.boundS();
         double control = Double.isFinite(boundS) && boundS > 0 ? Math.min(Math.max(boundS / 150, 2), 300) : 30;
         Rider.Ride ride = rider.ride(control, LONG_HOLD_S);
@@ -318,7 +321,6 @@ public final class Planner {
             }
             best = b;
         }
-        evaluations += rider.trials();
         if (passed != null && passedMargin > 1.0011) {
             notes.add(String.format(java.util.Locale.ROOT, "the rider kept a margin of %.4f so the rounded recipe passes its proof",
                     passedMargin));
@@ -347,7 +349,7 @@ public final class Planner {
                     notes.add("final hold lengthened " + ext + " time(s) so the target is met at its end");
                 }
                 return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
-                        Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null, rideS);
+                        Binding.perStep(bake, tool, recipe, proof), evaluations + rider.trials(), notes, null, rideS);
             }
             double lateBy = Double.isNaN(proof.timeToTargetS()) ? 0.01 * holdEnd : proof.timeToTargetS() - holdEnd;
             recipe = extendFinalHold(recipe, Math.max(Math.max(tool.timeStepS(), 1), lateBy));
