@@ -334,6 +334,26 @@ final class BakeModel {
         return heightM * freed + fixedVolumeM;
     }
 
+    /**
+     * The equations for Hipparchus' integrators, whose interface returns a fresh array per call
+     * (the only allocation on the right-hand-side path, forced by that API).
+     */
+    org.hipparchus.ode.OrdinaryDifferentialEquation asOde() {
+        return new org.hipparchus.ode.OrdinaryDifferentialEquation() {
+            @Override
+            public int getDimension() {
+                return dim;
+            }
+
+            @Override
+            public double[] computeDerivatives(double t, double[] y) {
+                double[] dy = new double[y.length];
+                derivatives(t, y, dy);
+                return dy;
+            }
+        };
+    }
+
     /** dy/dt; allocates nothing. */
     void derivatives(double t, double[] y, double[] dy) {
         double temp = waferTemperature(t, y);

@@ -196,19 +196,7 @@ public final class BakeStepper {
             DormandPrince853Integrator ei = s.explicit[c];
             ei.clearStepHandlers();
             ei.addStepHandler(interpolator -> observeStep(model, new HipparchusStep(interpolator), result));
-            OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
-                @Override
-                public int getDimension() {
-                    return model.dim;
-                }
-
-                @Override
-                public double[] computeDerivatives(double t, double[] yy) {
-                    double[] dy = new double[yy.length];
-                    model.derivatives(t, yy, dy);
-                    return dy;
-                }
-            };
+            OrdinaryDifferentialEquation ode = model.asOde();
             double[] end = ei.integrate(ode, new ODEState(t0, y[c]), t1).getPrimaryState();
             s.evaluations += ei.getEvaluations();
             System.arraycopy(end, 0, y[c], 0, end.length);

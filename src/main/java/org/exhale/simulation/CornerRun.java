@@ -123,19 +123,7 @@ final class CornerRun {
         } else {
             explicit = new DormandPrince853Integrator(1e-9, 1e7, absTol, fill(rtol, absTol.length));
         }
-        OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
-            @Override
-            public int getDimension() {
-                return model.dim;
-            }
-
-            @Override
-            public double[] computeDerivatives(double t, double[] state) {
-                double[] dy = new double[state.length];
-                model.derivatives(t, state, dy);
-                return dy;
-            }
-        };
+        OrdinaryDifferentialEquation ode = model.asOde();
         long[] count = new long[1];
         for (Segment seg : segments) {
             model.setSegment(seg);
