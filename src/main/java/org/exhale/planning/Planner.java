@@ -24,21 +24,19 @@ import org.hipparchus.optim.nonlinear.scalar.noderiv.BOBYQAOptimizer;
  * Finds the shortest recipe that takes the polymer to the residue target at the end of a hold
  * while every limit holds at every corner, within what the tool can do (MODEL.md §9).
  *
- * <p>The search is seeded from the physics rather than run blind:
  * <ol>
- *   <li><b>Ceiling seed</b>: ramp at the fastest rate to the ceiling (less the across-wafer
- *       spread) and hold. When only the ceiling and the ramp rate bind, this is the optimum.</li>
- *   <li><b>Rider seed</b>: the hot corner's trajectory that at every instant runs at the highest
- *       temperature the instantaneous limits allow (quasi-steady pressure and cap mechanics at the
- *       current conversion), no faster than the tool's ramp; its setpoint profile is approximated
- *       by a few linear ramps through points on it.</li>
- *   <li><b>Refinement</b>: BOBYQA (Hipparchus) moves the knot temperatures and durations of the
- *       better seed to shorten the bake, with a penalty on every margin below 1.</li>
- *   <li><b>Rounding and proof</b>: setpoints are rounded down to the setpoint step, durations
- *       to the time step (at least the minimum step), the final hold is extended to reach the
- *       target, the cool-down to the unload temperature is appended, and the rounded recipe is
- *       simulated again at every corner in the automatically chosen gas regime. If a limit fails,
- *       the knot temperatures are lowered by one setpoint step and the proof repeated.</li>
+ *   <li><b>Ceiling seed</b>: ramp at the fastest rate to the cap (ceiling less spread and overshoot
+ *       guard band) and hold. When it keeps every limit it is the optimum (only the ceiling and the
+ *       ramp bind); a bisection then finds the lowest final setpoint when the target comes before
+ *       the cap.</li>
+ *   <li><b>Rider plan</b> (otherwise): the closed-loop ride with unlimited steps in the proof's gas
+ *       regime ({@link Rider}), knots placed on it by dynamic programming, the recipe built from the
+ *       real simulated state segment by segment on the tool's grid, then proved by simulating it again
+ *       at every corner; a failed proof raises the rider's margin, bisected between failure and
+ *       success. The ride's own time is reported as {@code rideS}.</li>
+ *   <li><b>Fallback</b> (only when the rider finds no admissible path): the older seeds (a rider seed
+ *       on the instantaneous limits, a slow staircase), BOBYQA refinement, rounding and proof with
+ *       back-off; or a diagnosis of the limit that makes the case infeasible.</li>
  * </ol>
  * Deterministic: no randomness anywhere, so the same case gives the same recipe.
  */
