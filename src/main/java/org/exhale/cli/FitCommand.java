@@ -177,6 +177,8 @@ public final class FitCommand implements Callable<Integer> {
         List<String> notes = new ArrayList<>();
         Map<String, Map<String, String>> metadata = new LinkedHashMap<>();
         java.util.Map<Path, Path> seenFiles = new java.util.HashMap<>();
+        Map<String, Path> fileOfRun = new java.util.HashMap<>();
+        Map<Path, Integer> runsInFile = new java.util.HashMap<>();
         for (Path f : runFiles) {
             Path key = f.toAbsolutePath().normalize();
             try {
@@ -202,16 +204,13 @@ public final class FitCommand implements Callable<Integer> {
                     }
                 }
                 runs.add(run);
+                fileOfRun.putIfAbsent(run.label(), f);
             }
+            runsInFile.put(f, r.runs().size());
             notes.addAll(r.notes());
             metadata.putAll(r.metadata());
         }
         boolean quiet = common.quiet;
-        if (!quiet) {
-            for (String n : notes) {
-                err.println(n);
-            }
-        }
         ModelFitOptions fitOptions = new ModelFitOptions(k, kind, maxPoints, 1e-4, analysis.confidence(), 300);
         KineticsReport report;
         try {
@@ -222,8 +221,13 @@ public final class FitCommand implements Callable<Integer> {
                 }
             });
         } catch (IllegalArgumentException e) {
-            throw new InputException(ErrorKind.INCONSISTENT, runFiles.size() == 1 ? runFiles.get(0).toString() : "runs",
-                    "", 0, e.getMessage());
+            throw dataError(e.getMessage(), fileOfRun, runsInFile);
+        }
+        if (!quiet) {
+            // after the analysis, so that a data error stays one line
+            for (String n : notes) {
+                err.println(n);
+            }
         }
         ModelFitResult chosen = report.chosen();
         List<String> extraWarnings = new ArrayList<>();
@@ -372,6 +376,27 @@ public final class FitCommand implements Callable<Integer> {
                     c.model().id(), shape(c));
         }
         out.println("  intervals: " + report.intervalMethod());
+    }
+
+    /**
+     * A data error from the analysis, on one line naming the file the run came from: the analysis
+     * says "run LABEL: what", and the label leads back to the file (and names the run only where
+     * the file holds several).
+     */
+    private InputException dataError(String message, Map<String, Path> fileOfRun, Map<Path, Integer> runsInFile) {
+        String msg = String.valueOf(message);
+        if (msg.startsWith("run ")) {
+            for (Map.Entry<String, Path> e : fileOfRun.entrySet()) {
+                String prefix = "run " + e.getKey() + ": ";
+                if (msg.startsWith(prefix)) {
+                    boolean several = runsInFile.getOrDefault(e.getValue(), 1) > 1;
+                    return new InputException(ErrorKind.INCONSISTENT, e.getValue().toString(),
+                            several ? "run " + e.getKey() : "", 0, msg.substring(prefix.length()));
+                }
+            }
+        }
+        return new InputException(ErrorKind.INCONSISTENT, runFiles.size() == 1 ? runFiles.get(0).toString()
+                : "the runs (" + runFiles.size() + " files)", "", 0, msg);
     }
 
     /** A half-width, or "n/a" where too few runs leave no degrees of freedom to compute it (never "NaN"). */

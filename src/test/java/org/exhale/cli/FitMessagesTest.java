@@ -1,0 +1,72 @@
+package org.exhale.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.exhale.fitting.DemoTgaData;
+import org.exhale.fitting.TgaRun;
+import org.exhale.io.InputException;
+import org.exhale.io.TgaCsvWriter;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import picocli.CommandLine;
+
+/** What `exhale fit` tells the user: data errors on one line, figures without "-0" or "± 0.0". */
+class FitMessagesTest {
+    private static int run(StringWriter out, StringWriter err, String... args) {
+        CommandLine cmd = new CommandLine(new FitCommand());
+        cmd.setOut(new PrintWriter(out, true));
+        cmd.setErr(new PrintWriter(err, true));
+        cmd.setExecutionExceptionHandler((ex, c, p) -> {
+            c.getErr().println(ex.getMessage());
+            return ex instanceof InputException ? 2 : 1;
+        });
+        return cmd.execute(args);
+    }
+
+    /** An isothermal run: a ramp from 30 °C to 400 °C in 5 min, then 400 °C held for an hour while the mass falls. */
+    private static String isothermal() {
+        int n = 220;
+        double[] t = new double[n], temp = new double[n], m = new double[n];
+        for (int i = 0; i < n; i++) {
+            t[i] = i * 18.0;
+            double hold = Math.max(0, t[i] - 300);
+            temp[i] = Math.min(673.15, 303.15 + 370 * t[i] / 300);
+            m[i] = 10e-6 * (0.2 + 0.8 * Math.exp(-hold / 600));
+        }
+        return TgaCsvWriter.DEFAULT.format(List.of(new TgaRun("iso", t, temp, m, TgaRun.MassBasis.KILOGRAM)));
+    }
+
+    private static List<String> demo(Path dir) throws Exception {
+        List<String> args = new ArrayList<>();
+        for (String[] f : DemoTgaData.files()) {
+            Path p = dir.resolve(f[0]);
+            Files.writeString(p, f[1]);
+            args.add(p.toString());
+        }
+        return args;
+    }
+
+    @Test
+    void aRunAtConstantTemperatureIsOneLineNamingItsFile(@TempDir Path dir) throws Exception {
+        List<String> args = demo(dir);
+        Path iso = dir.resolve("iso.csv");
+        Files.writeString(iso, isothermal());
+        args.add(iso.toString());
+        args.addAll(List.of("-o", dir.resolve("out").toString(), "--max-points", "100"));
+        StringWriter out = new StringWriter(), err = new StringWriter();
+        assertEquals(2, run(out, err, args.toArray(new String[0])));
+        String e = err.toString().strip();
+        assertEquals(1, e.lines().count(), e);
+        assertTrue(e.startsWith(iso.toString()), e);
+        assertTrue(e.contains("does not rise") && e.contains("heating run is expected") && e.contains("400.0 °C"), e);
+        assertTrue(!e.contains("K/min") && !e.contains("e-"), e);
+        assertTrue(!Files.exists(dir.resolve("out/fit.json")));
+    }
+}
