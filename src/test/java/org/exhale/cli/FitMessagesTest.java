@@ -69,4 +69,19 @@ class FitMessagesTest {
         assertTrue(!e.contains("K/min") && !e.contains("e-"), e);
         assertTrue(!Files.exists(dir.resolve("out/fit.json")));
     }
+
+    @Test
+    void twoRunsGiveNoIntervalRatherThanPlusMinusZero(@TempDir Path dir) throws Exception {
+        List<String> args = new ArrayList<>(demo(dir).subList(0, 2));
+        args.addAll(List.of("-o", dir.resolve("out").toString(), "--max-points", "100", "--components", "1"));
+        StringWriter out = new StringWriter(), err = new StringWriter();
+        run(out, err, args.toArray(new String[0]));
+        String o = out.toString();
+        assertTrue(o.contains("vyazovkin"), o + err);
+        assertTrue(!o.contains("± 0.0 ") && !o.contains("NaN"), o);
+        // every E(alpha) row: five methods, and with two runs none has an interval
+        long rows = o.lines().filter(l -> l.matches("\\s+0\\.[13579]0 .*")).count();
+        assertEquals(5, rows, o);
+        o.lines().filter(l -> l.matches("\\s+0\\.[13579]0 .*")).forEach(l -> assertTrue(!l.matches(".*± \\d.*"), l));
+    }
 }
