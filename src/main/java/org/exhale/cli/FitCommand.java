@@ -324,8 +324,9 @@ public final class FitCommand implements Callable<Integer> {
     private static void summary(PrintWriter out, KineticsReport report) {
         out.println("Runs:");
         for (ConversionCurve c : report.curves()) {
-            out.printf(Locale.ROOT, "  %-24s %8.3f K/min   peak %.2f K   final/initial mass %.4f%n", c.label(),
-                    c.heatingRateKPerMin(), c.peakTemperatureK(), c.finalMass() / c.initialMass());
+            out.printf(Locale.ROOT, "  %-24s %8.3f K/min   peak %s   final/initial mass %s%n", c.label(),
+                    c.heatingRateKPerMin(), org.exhale.report.Readable.celsius(c.peakTemperatureK()),
+                    org.exhale.report.Readable.fixed(c.finalMass() / c.initialMass(), 4));
         }
         if (!report.isoconversional().isEmpty()) {
             out.println("Activation energy E(alpha) [kJ/mol], 95 % half-width:");

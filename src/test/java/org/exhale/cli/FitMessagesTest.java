@@ -10,9 +10,11 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.exhale.fitting.DemoTgaData;
+import org.exhale.fitting.SyntheticTga;
 import org.exhale.fitting.TgaRun;
 import org.exhale.io.InputException;
 import org.exhale.io.TgaCsvWriter;
+import org.exhale.kinetics.ReactionModel;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
@@ -83,5 +85,30 @@ class FitMessagesTest {
         long rows = o.lines().filter(l -> l.matches("\\s+0\\.[13579]0 .*")).count();
         assertEquals(5, rows, o);
         o.lines().filter(l -> l.matches("\\s+0\\.[13579]0 .*")).forEach(l -> assertTrue(!l.matches(".*± \\d.*"), l));
+    }
+
+    @Test
+    void aTaredBalanceDoesNotPrintMinusZero(@TempDir Path dir) throws Exception {
+        // A first-order step that goes to completion, the balance tared 0.1 µg low: the final
+        // plateau is -1e-5 of the initial mass, which must read 0.0000, not -0.0000.
+        List<SyntheticTga.Part> parts = List.of(new SyntheticTga.Part(1, 1e12, 150e3, new ReactionModel.NthOrder(1)));
+        List<String> args = new ArrayList<>();
+        for (double b : new double[] {2, 5, 10}) {
+            TgaRun frac = SyntheticTga.run("r", parts, b, 423.15, 703.15, 0.1, 1e-4, 0, null);
+            double[] m = frac.mass();
+            for (int i = 0; i < m.length; i++) {
+                m[i] = (10.0 * m[i] - 1e-4) * 1e-6;
+            }
+            Path p = dir.resolve("tared_" + (int) b + ".csv");
+            Files.writeString(p, TgaCsvWriter.DEFAULT.format(List.of(
+                    new TgaRun("r", frac.timeS(), frac.temperatureK(), m, TgaRun.MassBasis.KILOGRAM))));
+            args.add(p.toString());
+        }
+        args.addAll(List.of("-o", dir.resolve("out").toString(), "--max-points", "100", "--components", "1"));
+        StringWriter out = new StringWriter(), err = new StringWriter();
+        run(out, err, args.toArray(new String[0]));
+        String o = out.toString();
+        assertTrue(o.contains("final/initial mass 0.0000"), o + err);
+        assertTrue(!o.contains("-0.0") && !o.matches("(?s).*peak [0-9.]+ K.*"), o);
     }
 }
