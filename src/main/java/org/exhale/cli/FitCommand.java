@@ -280,6 +280,7 @@ public final class FitCommand implements Callable<Integer> {
         settings.put("drift_correction", !noDriftCorrection);
         settings.put("lag_s", lagS);
         List<String> allWarnings = new ArrayList<>(report.warnings());
+        allWarnings.addAll(sameRateWarnings(report.curves(), fileOfRun));
         allWarnings.addAll(extraWarnings);
         if (chosen == null) {
             folder.put("isoconversional.csv", IsoconversionalCsvWriter.format(report.isoconversional()));
@@ -377,6 +378,32 @@ public final class FitCommand implements Callable<Integer> {
                     c.model().id(), shape(c));
         }
         out.println("  intervals: " + report.intervalMethod());
+    }
+
+    /** Measured heating rates closer than this share count as the same rate. */
+    static final double SAME_RATE_SHARE = 0.02;
+
+    /**
+     * One line per pair of runs from different files measured at the same heating rate (their data
+     * differ: identical data are refused when the files are read). They count as separate runs, which
+     * is right for repeats, but often means a file was exported twice or carries the wrong rate.
+     */
+    private static List<String> sameRateWarnings(List<ConversionCurve> curves, Map<String, Path> fileOfRun) {
+        List<String> w = new ArrayList<>();
+        for (int i = 0; i < curves.size(); i++) {
+            for (int j = i + 1; j < curves.size(); j++) {
+                ConversionCurve a = curves.get(i), b = curves.get(j);
+                Path fa = fileOfRun.get(a.label()), fb = fileOfRun.get(b.label());
+                double ra = a.heatingRateKPerMin(), rb = b.heatingRateKPerMin();
+                if (fa != null && fb != null && !fa.equals(fb)
+                        && Math.abs(ra - rb) <= SAME_RATE_SHARE * Math.max(ra, rb)) {
+                    w.add(String.format(Locale.ROOT, "%s and %s are both heated at %.3g K/min but hold different "
+                            + "data: they count as two runs at one rate; if one is not a deliberate repeat, check "
+                            + "that it is the right file", fa, fb, (ra + rb) / 2));
+                }
+            }
+        }
+        return w;
     }
 
     /**

@@ -111,4 +111,35 @@ class FitMessagesTest {
         assertTrue(o.contains("final/initial mass 0.0000"), o + err);
         assertTrue(!o.contains("-0.0") && !o.matches("(?s).*peak [0-9.]+ K.*"), o);
     }
+
+    @Test
+    void twoFilesAtOneHeatingRateAreNamedInOneWarning(@TempDir Path dir) throws Exception {
+        List<String> args = demo(dir);
+        // a repeat of the 5 K/min run with different noise: same rate, different data
+        String five = Files.readString(Path.of(args.get(1)));
+        StringBuilder repeat = new StringBuilder();
+        int row = 0;
+        for (String line : five.split("\n", -1)) {
+            String[] c = line.split(",");
+            if (c.length == 3 && c[2].matches("[-0-9.eE+]+") && row++ % 2 == 0) {
+                line = c[0] + "," + c[1] + "," + (Double.parseDouble(c[2]) * 1.0005);
+            }
+            repeat.append(line).append('\n');
+        }
+        Path again = dir.resolve("repeat_5Kmin.csv");
+        Files.writeString(again, repeat.toString());
+        args.add(again.toString());
+        args.addAll(List.of("-o", dir.resolve("out").toString(), "--max-points", "100", "--components", "1"));
+        StringWriter out = new StringWriter(), err = new StringWriter();
+        assertEquals(0, run(out, err, args.toArray(new String[0])), err.toString());
+        List<String> w = err.toString().lines().filter(l -> l.startsWith("warning: ") && l.contains(again.toString())).toList();
+        assertEquals(1, w.size(), err.toString());
+        assertTrue(w.get(0).startsWith("warning: ") && w.get(0).contains(args.get(1)) && w.get(0).contains("at 5.00 K/min"), w.get(0));
+        // no such warning on the four demo runs at four rates
+        StringWriter out2 = new StringWriter(), err2 = new StringWriter();
+        List<String> four = new ArrayList<>(demo(Files.createDirectories(dir.resolve("four"))));
+        four.addAll(List.of("-o", dir.resolve("out2").toString(), "--max-points", "100", "--components", "1"));
+        assertEquals(0, run(out2, err2, four.toArray(new String[0])), err2.toString());
+        assertTrue(!err2.toString().contains("both heated"), err2.toString());
+    }
 }
