@@ -177,6 +177,8 @@ public final class FitCommand implements Callable<Integer> {
         List<String> notes = new ArrayList<>();
         Map<String, Map<String, String>> metadata = new LinkedHashMap<>();
         java.util.Map<Path, Path> seenFiles = new java.util.HashMap<>();
+        Map<String, Path> fileOfRun = new java.util.HashMap<>();
+        Map<Path, Integer> runsInFile = new java.util.HashMap<>();
         for (Path f : runFiles) {
             Path key = f.toAbsolutePath().normalize();
             try {
@@ -202,16 +204,13 @@ public final class FitCommand implements Callable<Integer> {
                     }
                 }
                 runs.add(run);
+                fileOfRun.putIfAbsent(run.label(), f);
             }
+            runsInFile.put(f, r.runs().size());
             notes.addAll(r.notes());
             metadata.putAll(r.metadata());
         }
         boolean quiet = common.quiet;
-        if (!quiet) {
-            for (String n : notes) {
-                err.println(n);
-            }
-        }
         ModelFitOptions fitOptions = new ModelFitOptions(k, kind, maxPoints, 1e-4, analysis.confidence(), 300);
         KineticsReport report;
         try {
@@ -222,8 +221,13 @@ public final class FitCommand implements Callable<Integer> {
                 }
             });
         } catch (IllegalArgumentException e) {
-            throw new InputException(ErrorKind.INCONSISTENT, runFiles.size() == 1 ? runFiles.get(0).toString() : "runs",
-                    "", 0, e.getMessage());
+            throw dataError(e.getMessage(), fileOfRun, runsInFile);
+        }
+        if (!quiet) {
+            // after the analysis, so that a data error stays one line
+            for (String n : notes) {
+                err.println(n);
+            }
         }
         ModelFitResult chosen = report.chosen();
         List<String> extraWarnings = new ArrayList<>();
@@ -276,6 +280,7 @@ public final class FitCommand implements Callable<Integer> {
         settings.put("drift_correction", !noDriftCorrection);
         settings.put("lag_s", lagS);
         List<String> allWarnings = new ArrayList<>(report.warnings());
+        allWarnings.addAll(sameRateWarnings(report.curves(), fileOfRun));
         allWarnings.addAll(extraWarnings);
         if (chosen == null) {
             folder.put("isoconversional.csv", IsoconversionalCsvWriter.format(report.isoconversional()));
@@ -320,8 +325,9 @@ public final class FitCommand implements Callable<Integer> {
     private static void summary(PrintWriter out, KineticsReport report) {
         out.println("Runs:");
         for (ConversionCurve c : report.curves()) {
-            out.printf(Locale.ROOT, "  %-24s %8.3f K/min   peak %.2f K   final/initial mass %.4f%n", c.label(),
-                    c.heatingRateKPerMin(), c.peakTemperatureK(), c.finalMass() / c.initialMass());
+            out.printf(Locale.ROOT, "  %-24s %8.3f K/min   peak %s   final/initial mass %s%n", c.label(),
+                    c.heatingRateKPerMin(), org.exhale.report.Readable.celsius(c.peakTemperatureK()),
+                    org.exhale.report.Readable.fixed(c.finalMass() / c.initialMass(), 4));
         }
         if (!report.isoconversional().isEmpty()) {
             out.println("Activation energy E(alpha) [kJ/mol], 95 % half-width:");
@@ -372,6 +378,53 @@ public final class FitCommand implements Callable<Integer> {
                     c.model().id(), shape(c));
         }
         out.println("  intervals: " + report.intervalMethod());
+    }
+
+    /** Measured heating rates closer than this share count as the same rate. */
+    static final double SAME_RATE_SHARE = 0.02;
+
+    /**
+     * One line per pair of runs from different files measured at the same heating rate (their data
+     * differ: identical data are refused when the files are read). They count as separate runs, which
+     * is right for repeats, but often means a file was exported twice or carries the wrong rate.
+     */
+    private static List<String> sameRateWarnings(List<ConversionCurve> curves, Map<String, Path> fileOfRun) {
+        List<String> w = new ArrayList<>();
+        for (int i = 0; i < curves.size(); i++) {
+            for (int j = i + 1; j < curves.size(); j++) {
+                ConversionCurve a = curves.get(i), b = curves.get(j);
+                Path fa = fileOfRun.get(a.label()), fb = fileOfRun.get(b.label());
+                double ra = a.heatingRateKPerMin(), rb = b.heatingRateKPerMin();
+                if (fa != null && fb != null && !fa.equals(fb)
+                        && Math.abs(ra - rb) <= SAME_RATE_SHARE * Math.max(ra, rb)) {
+                    w.add(String.format(Locale.ROOT, "%s and %s are both heated at %.3g K/min but hold different "
+                            + "data: they count as two runs at one rate; if one is not a deliberate repeat, check "
+                            + "that it is the right file", fa, fb, (ra + rb) / 2));
+                }
+            }
+        }
+        return w;
+    }
+
+    /**
+     * A data error from the analysis, on one line naming the file the run came from: the analysis
+     * says "run LABEL: what", and the label leads back to the file (and names the run only where
+     * the file holds several).
+     */
+    private InputException dataError(String message, Map<String, Path> fileOfRun, Map<Path, Integer> runsInFile) {
+        String msg = String.valueOf(message);
+        if (msg.startsWith("run ")) {
+            for (Map.Entry<String, Path> e : fileOfRun.entrySet()) {
+                String prefix = "run " + e.getKey() + ": ";
+                if (msg.startsWith(prefix)) {
+                    boolean several = runsInFile.getOrDefault(e.getValue(), 1) > 1;
+                    return new InputException(ErrorKind.INCONSISTENT, e.getValue().toString(),
+                            several ? "run " + e.getKey() : "", 0, msg.substring(prefix.length()));
+                }
+            }
+        }
+        return new InputException(ErrorKind.INCONSISTENT, runFiles.size() == 1 ? runFiles.get(0).toString()
+                : "the runs (" + runFiles.size() + " files)", "", 0, msg);
     }
 
     /** A half-width, or "n/a" where too few runs leave no degrees of freedom to compute it (never "NaN"). */

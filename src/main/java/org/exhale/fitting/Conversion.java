@@ -50,6 +50,13 @@ public final class Conversion {
                     + options.alphaMin() + " and " + options.alphaMax() + "; the run is too coarse");
         }
         LinearRegression heating = LinearRegression.fit(t, temp, from, to + 1);
+        if (!(heating.slope() * (t[to] - t[from]) >= MIN_REACTION_RISE_K)) {
+            // An isothermal hold (or a cooling segment) during the mass loss: no heating rate to analyse.
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "run %s: the sample temperature "
+                    + "does not rise while the mass is lost (%.1f °C to %.1f °C between conversion %s and %s): "
+                    + "a heating run is expected", run.label(), temp[from] - 273.15, temp[to] - 273.15,
+                    options.alphaMin(), options.alphaMax()));
+        }
 
         double[] grid = options.grid();
         double[] gt = new double[grid.length];
@@ -85,6 +92,9 @@ public final class Conversion {
         return new ConversionCurve(run.label(), t, temp, alpha, as, rate, heating.slope(), heating.maxAbsResidual(),
                 m0, mEnd, from, to, grid, gt, gT, gr, peakT, peakTemp);
     }
+
+    /** Least temperature rise over the analysed conversion range for a run to count as heating [K]. */
+    static final double MIN_REACTION_RISE_K = 1;
 
     /** Share of the peak rate above which the top of the peak is fitted. */
     static final double PEAK_TOP_SHARE = 0.9;

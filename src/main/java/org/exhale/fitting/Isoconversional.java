@@ -23,7 +23,8 @@ import org.hipparchus.optim.univariate.UnivariatePointValuePair;
  * takes from α − Δα/2 to α + Δα/2, along its measured temperature. The interval follows the
  * F-test procedure of Vyazovkin & Wight, Anal. Chem. 72 (2000) 3171 (from memory, unconfirmed):
  * the E where (Φ(E) − n(n−1))/(Φmin − n(n−1)) equals F(p; n−1, n−1); the reported half-width is
- * half the distance between the two such E.
+ * half the distance between the two such E. With two runs Φmin is 2 exactly at any α, so there is
+ * no interval (NaN, shown as "n/a"), as for the linear methods.
  */
 public final class Isoconversional {
     private static final double R = PhysicalConstants.GAS_CONSTANT;
@@ -199,6 +200,12 @@ public final class Isoconversional {
             double phiMin = phi.value(best);
             double floor = m * (m - 1.0);
             double excess = phiMin - floor;
+            if (m < 3) {
+                // Two runs always agree exactly at the minimum (Φmin = 2): no scatter is left to set
+                // an interval, as for the linear methods, which need three runs too.
+                ci[g] = Double.NaN;
+                continue;
+            }
             if (!(excess > 1e-14 * floor)) {
                 ci[g] = 0;
                 continue;

@@ -275,7 +275,7 @@ public final class TgaCsvReader {
             }
             if (rise < MIN_HEATING_RISE_K) {
                 throw new InputException(ErrorKind.INCONSISTENT, fileName, "", 0, String.format(Locale.ROOT,
-                        "the temperature rises by %.1f K only: not a heating run; export the heating ramp", rise));
+                        "the sample temperature rises by %.1f K only: a heating run is expected; export the heating ramp", rise));
             }
             out.add(new TgaRun(label, java.util.Arrays.copyOf(s.time, s.size), java.util.Arrays.copyOf(s.temp, s.size),
                     java.util.Arrays.copyOf(s.mass, s.size), s.basis));

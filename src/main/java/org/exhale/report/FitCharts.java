@@ -31,7 +31,8 @@ final class FitCharts {
 
     FitCharts(RunFolder folder) {
         this.f = folder;
-        this.subtitle = ReportText.label(folder.caseName());
+        // A fit folder has no case: the subtitle names the runs, never the folder.
+        this.subtitle = folder.fit().map(FitCharts::runsSubtitle).orElse(ReportText.label(folder.caseName()));
         f.fit().ifPresent(j -> {
             for (JsonNode r : j.path("runs")) {
                 String label = r.path("label").asText("");
@@ -67,6 +68,20 @@ final class FitCharts {
             }
         });
         return out;
+    }
+
+    /** "Kinetics from 4 runs: a, b, c, d", the names cut short when there are many. */
+    static String runsSubtitle(JsonNode fit) {
+        List<String> names = new ArrayList<>();
+        for (JsonNode r : fit.path("runs")) {
+            names.add(ReportText.label(r.path("label").asText("")));
+        }
+        String head = "Kinetics from " + names.size() + (names.size() == 1 ? " run" : " runs");
+        if (names.isEmpty()) {
+            return "Kinetics";
+        }
+        String list = String.join(", ", names);
+        return list.length() <= 90 ? head + ": " + list : head;
     }
 
     private String runName(String label) {
@@ -262,12 +277,16 @@ final class FitCharts {
         double span = pts.getMaxX() - pts.getMinX();
         p.xRange(pts.getMinX() - 0.06 * span, pts.getMaxX() + 0.18 * span);
         XYPlot plot = p.build();
+        double midX = (pts.getMinX() + pts.getMaxX()) / 2;
         for (int i = 0; i < labels.size(); i++) {
-            XYTextAnnotation t = new XYTextAnnotation("  " + labels.get(i), pts.getX(i).doubleValue(),
-                    pts.getY(i).doubleValue());
+            // Points run from upper left (fast) to lower right (slow): a label reads to the right and
+            // below on the left half, to the left and above on the right half, so it stays in the frame.
+            boolean right = pts.getX(i).doubleValue() > midX;
+            XYTextAnnotation t = new XYTextAnnotation(right ? labels.get(i) + "  " : "  " + labels.get(i),
+                    pts.getX(i).doubleValue(), pts.getY(i).doubleValue());
             t.setFont(ChartStyle.NOTE);
             t.setPaint(ChartStyle.INK);
-            t.setTextAnchor(TextAnchor.TOP_LEFT);
+            t.setTextAnchor(right ? TextAnchor.BOTTOM_RIGHT : TextAnchor.TOP_LEFT);
             plot.addAnnotation(t);
         }
         JFreeChart c = ChartStyle.chart("Kissinger plot", plot, subtitle, eNote);

@@ -112,6 +112,14 @@ public final class Readable {
         return noMinusZero(ReportText.plain(v, 3)).replace('−', '-');
     }
 
+    /** A plain figure with a fixed number of decimals, never "-0.0000"; "n/a" when not finite. */
+    public static String fixed(double v, int decimals) {
+        if (!Double.isFinite(v)) {
+            return "n/a";
+        }
+        return noMinusZero(String.format(Locale.ROOT, "%." + decimals + "f", v));
+    }
+
     private static String noMinusZero(String s) {
         return s.matches("[-−]0(\\.0*)?( .*)?") ? s.substring(1) : s;
     }
