@@ -21,6 +21,11 @@ import picocli.CommandLine;
 /** End-to-end run of the command on the seeded demo runs (invented two-component polymer, see DemoTgaData). */
 class FitCommandTest {
     private static int run(StringWriter out, StringWriter err, String... args) {
+        return runFit(out, err, args);
+    }
+
+    /** Runs `exhale fit` in-process with its output captured; input errors exit 2 as in Main. */
+    static int runFit(StringWriter out, StringWriter err, String... args) {
         CommandLine cmd = new CommandLine(new FitCommand());
         cmd.setOut(new PrintWriter(out, true));
         cmd.setErr(new PrintWriter(err, true));

@@ -3,7 +3,6 @@ package org.exhale.cli;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -12,24 +11,15 @@ import java.util.List;
 import org.exhale.fitting.DemoTgaData;
 import org.exhale.fitting.SyntheticTga;
 import org.exhale.fitting.TgaRun;
-import org.exhale.io.InputException;
 import org.exhale.io.TgaCsvWriter;
 import org.exhale.kinetics.ReactionModel;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import picocli.CommandLine;
 
 /** What `exhale fit` tells the user: data errors on one line, figures without "-0" or "± 0.0". */
 class FitMessagesTest {
     private static int run(StringWriter out, StringWriter err, String... args) {
-        CommandLine cmd = new CommandLine(new FitCommand());
-        cmd.setOut(new PrintWriter(out, true));
-        cmd.setErr(new PrintWriter(err, true));
-        cmd.setExecutionExceptionHandler((ex, c, p) -> {
-            c.getErr().println(ex.getMessage());
-            return ex instanceof InputException ? 2 : 1;
-        });
-        return cmd.execute(args);
+        return FitCommandTest.runFit(out, err, args);
     }
 
     /** An isothermal run: a ramp from 30 °C to 400 °C in 5 min, then 400 °C held for an hour while the mass falls. */

@@ -39,20 +39,7 @@ class FoepplVonKarmanTest {
         double n0 = sigma0 * h;
         double ncr = Math.PI * Math.PI * d / (a * a);
         // bracket the force: N − N0 − stretch(N) is increasing in N
-        double lo = Math.max(n0, -ncr * (1 - 1e-9));
-        double hi = Math.max(n0, 0) + 1;
-        while (residual(hi, a, h, ebar, d, n0, q, n) < 0) {
-            hi = 2 * hi + Math.abs(n0);
-        }
-        for (int it = 0; it < 200 && hi - lo > 1e-12 * Math.abs(hi); it++) {
-            double mid = 0.5 * (lo + hi);
-            if (residual(mid, a, h, ebar, d, n0, q, n) < 0) {
-                lo = mid;
-            } else {
-                hi = mid;
-            }
-        }
-        double nForce = 0.5 * (lo + hi);
+        double nForce = membraneForce(Math.max(n0, -ncr * (1 - 1e-9)), a, h, ebar, d, n0, q, n);
         double[] w = beamColumn(a, d, nForce, q, n);
         double dx = 2 * a / n;
         double edgeM = d * 2 * w[1] / (dx * dx);                     // ghost node w[-1] = w[1], w[0] = 0
@@ -62,12 +49,8 @@ class FoepplVonKarmanTest {
                 w[c]};
     }
 
-    /** The FD deflection at nodes 0..n and, at index n + 1, the membrane force N [N/m]. */
-    static double[] stripField(double a, double h, double e, double nu, double sigma0, double q, int n) {
-        double ebar = e / (1 - nu * nu);
-        double d = ebar * h * h * h / 12;
-        double n0 = sigma0 * h;
-        double lo = n0;
+    /** The membrane force that matches the stretching of its own FD deflection, by bisection from lo. */
+    private static double membraneForce(double lo, double a, double h, double ebar, double d, double n0, double q, int n) {
         double hi = Math.max(n0, 0) + 1;
         while (residual(hi, a, h, ebar, d, n0, q, n) < 0) {
             hi = 2 * hi + Math.abs(n0);
@@ -80,7 +63,15 @@ class FoepplVonKarmanTest {
                 hi = mid;
             }
         }
-        double nForce = 0.5 * (lo + hi);
+        return 0.5 * (lo + hi);
+    }
+
+    /** The FD deflection at nodes 0..n and, at index n + 1, the membrane force N [N/m]. */
+    static double[] stripField(double a, double h, double e, double nu, double sigma0, double q, int n) {
+        double ebar = e / (1 - nu * nu);
+        double d = ebar * h * h * h / 12;
+        double n0 = sigma0 * h;
+        double nForce = membraneForce(n0, a, h, ebar, d, n0, q, n);
         double[] w = beamColumn(a, d, nForce, q, n);
         double[] out = java.util.Arrays.copyOf(w, n + 2);
         out[n + 1] = nForce;
