@@ -751,18 +751,6 @@ public final class Planner {
         return pa[1] + (pp[0] - pa[0]) / (pb[0] - pa[0]) * (pb[1] - pa[1]);
     }
 
-    private static double interpolate(List<double[]> path, double t) {
-        for (int i = 1; i < path.size(); i++) {
-            double[] a = path.get(i - 1);
-            double[] b = path.get(i);
-            if (t <= b[0]) {
-                double s = (t - a[0]) / (b[0] - a[0]);
-                return a[1] + s * (b[1] - a[1]);
-            }
-        }
-        return path.get(path.size() - 1)[1];
-    }
-
     /** A slow fallback: ramp to well below the cap, then creep up at a tenth of the fastest rate. */
     private Shape slowest() {
         double mid = startK + 0.5 * (capK - startK);
