@@ -25,8 +25,10 @@ import org.hipparchus.util.FastMath;
  *       with J Bessel functions in compression. The stretching is uniform-force equivalent: the
  *       biaxial strain that the area change of the deflected (Bessel) shape gives,
  *       N = σ_th h + E h/(1−ν) · (1/2a²)∫φ² r dr, solved self-consistently. The true stretching
- *       force varies with radius; against an axisymmetric Föppl–von Kármán solution this
- *       approximation is measured in the tests (docs/model.md states the figures).</li>
+ *       force varies with radius, so the edge and centre forces, both moments and the deflection
+ *       are then corrected to the axisymmetric Föppl–von Kármán solution by the tabulated ratios of
+ *       {@link DiscCorrection} (finite-difference FvK solutions; within 2 % of an independent
+ *       shooting solution in the tests).</li>
  *   <li><b>Rectangle</b> w × L: the strip of width w (the solution across the long edges). It is
  *       conservative: in the small-deflection limit the strip's edge stress ½ q w²/h² is the
  *       largest of Roark's clamped-rectangle values (β1 ≤ 0.5, Table 11.4 case 8a), and in the
@@ -141,7 +143,14 @@ public final class CapStructure {
             return 0;
         }
         double s = solveTension(s0, q);
-        double f = disc ? MembraneFunctions.discDeflection(s) : MembraneFunctions.stripDeflection(s);
+        double f;
+        if (disc) {
+            double[] r = new double[DiscCorrection.PARTS];
+            DiscCorrection.ratios(q, s0, film.poisson(), r);
+            f = MembraneFunctions.discDeflection(s) * r[4];
+        } else {
+            f = MembraneFunctions.stripDeflection(s);
+        }
         return Math.signum(excessPressurePa) * thicknessM * q * f;
     }
 
@@ -166,7 +175,8 @@ public final class CapStructure {
         double s0 = sPerPa * sigmaTh;
         double q = qPerPa * Math.abs(excessPressurePa);
         double s = q == 0 ? s0 : solveTension(s0, q);
-        double sigmaN = s / sPerPa;                               // N/h
+        double sigmaN = s / sPerPa;                               // N/h (uniform force: strip)
+        double sigmaNCentre = sigmaN;
         double delta;
         double mEdge;                                             // |M_e| h/(D Q) etc. in units of D h/a²
         double mCentre;
@@ -194,9 +204,15 @@ public final class CapStructure {
                 dE = MembraneFunctions.discEdge(s);
                 dC = MembraneFunctions.discCentre(s);
             }
-            delta = h * q * dD;
-            mEdge = q * Math.abs(dE);
-            mCentre = q * (1 + film.poisson()) * Math.abs(dC);
+            // to the axisymmetric FvK solution: the radial force varies with radius
+            double[] r = new double[DiscCorrection.PARTS];
+            DiscCorrection.ratios(q, s0, film.poisson(), r);
+            double stretch = s - s0;
+            sigmaN = (s0 + r[0] * stretch) / sPerPa;
+            sigmaNCentre = (s0 + r[1] * stretch) / sPerPa;
+            delta = h * q * dD * r[4];
+            mEdge = q * Math.abs(dE) * r[2];
+            mCentre = q * (1 + film.poisson()) * Math.abs(dC) * r[3];
             double fe = MembraneFunctions.stripEdge(s);
             ratioSquare = s > MembraneFunctions.STRIP_BUCKLING_S
                     ? MembraneFunctions.stripBendingEnergy(s) / (2 * fe * fe) : 1;
@@ -212,20 +228,21 @@ public final class CapStructure {
         double sigmaBEdge = stressPerM * mEdge;
         double sigmaBCentre = stressPerM * mCentre;
         double sigmaEdge = sigmaN + sigmaBEdge;
-        double sigmaCentre = sigmaN + sigmaBCentre;
+        double sigmaCentre = sigmaNCentre + sigmaBCentre;
         double sigmaMax = Math.max(sigmaEdge, sigmaCentre);
         double ebar = planeStrainModulusPa;
         double bonded = sigmaMax > 0 ? CHANNEL_CRACK_Z * sigmaMax * sigmaMax * h / ebar : 0;
         double spanCrack = 0;
         if (sigmaMax > 0) {
-            double membrane = Math.max(sigmaN, 0);
+            // across a diameter the hoop force is at most the larger of the centre and edge forces
+            double membrane = Math.max(Math.max(sigmaN, sigmaNCentre), 0);
             spanCrack = span.widthM() / (2 * ebar)
                     * (membrane * membrane + sigmaBEdge * sigmaBEdge * ratioSquare / 3);
         }
         double sigmaD = Math.max(Math.max(Math.abs(sigmaEdge), Math.abs(sigmaN - sigmaBEdge)),
-                Math.max(Math.abs(sigmaCentre), Math.abs(sigmaN - sigmaBCentre)));
+                Math.max(Math.abs(sigmaCentre), Math.abs(sigmaNCentre - sigmaBCentre)));
         double gD = sigmaD * sigmaD * h / (2 * ebar);
-        double sigmaM = Math.max(sigmaN - sigmaTh, 0);
+        double sigmaM = Math.max(Math.max(sigmaN, sigmaNCentre) - sigmaTh, 0);
         double sigmaB = Math.max(sigmaBEdge, sigmaBCentre);
         EdgeTerm dominant = EdgeTerm.THERMAL;
         double largest = Math.abs(sigmaTh);
@@ -250,16 +267,22 @@ public final class CapStructure {
     private static final double STRIP_MODEL_B = Math.sqrt(157.5);
     private static final double DISC_MODEL_B = Math.sqrt(1152);
     private double solveTension(double s0, double q) {
+        return solveTension(disc, stretchGain, s0, q);
+    }
+
+    /** The same for a strip or a disc with stretch gain c (3 strip, 6(1+ν) disc), s0 and Q. */
+    static double solveTension(boolean disc, double stretchGain, double s0, double q) {
+        double bucklingS = disc ? MembraneFunctions.DISC_BUCKLING_S : MembraneFunctions.STRIP_BUCKLING_S;
         double gain = stretchGain * q * q;
         double floor = bucklingS * (1 - 1e-12);
         double lo = Math.max(s0, floor);
         double hi;
         if (lo == s0) {
-            hi = s0 + gain * stretch(s0);
+            hi = s0 + gain * stretch(disc, s0);
         } else {
             // beyond buckling at no load: the root lies above the buckling load; find an upper point
             hi = Math.max(0, s0) + Math.cbrt(gain) + 1;
-            while (hi - s0 - gain * stretch(hi) < 0) {
+            while (hi - s0 - gain * stretch(disc, hi) < 0) {
                 hi = 2 * hi + 1;
             }
         }
@@ -287,8 +310,8 @@ public final class CapStructure {
                 f = MembraneFunctions.discStretch(s, r);
                 fp = MembraneFunctions.discStretchSlope(s, r);
             } else {
-                f = stretch(s);
-                fp = stretchSlope(s);
+                f = stretch(disc, s);
+                fp = stretchSlope(disc, s);
             }
             double phi = s - s0 - gain * f;
             if (phi < 0) {
@@ -309,11 +332,11 @@ public final class CapStructure {
         return s;
     }
 
-    private double stretch(double s) {
+    private static double stretch(boolean disc, double s) {
         return disc ? MembraneFunctions.discStretch(s) : MembraneFunctions.stripStretch(s);
     }
 
-    private double stretchSlope(double s) {
+    private static double stretchSlope(boolean disc, double s) {
         return disc ? MembraneFunctions.discStretchSlope(s) : MembraneFunctions.stripStretchSlope(s);
     }
 

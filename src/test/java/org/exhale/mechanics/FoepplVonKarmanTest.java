@@ -168,7 +168,7 @@ class FoepplVonKarmanTest {
         // continuation in the load from the nearly linear problem (guesses unused beyond a check of sign)
         double[] x = {0, 0};
         double[] end = null;
-        int steps = 12;
+        int steps = 4;
         for (int k = 1; k <= steps; k++) {
             double qk = bigQ * Math.pow(k / (double) steps, 3);
             if (k > 1) {
@@ -178,13 +178,26 @@ class FoepplVonKarmanTest {
             x = newton(n0, qk, nu, x);
         }
         end = shoot(n0, bigQ, nu, x);
-        assertTrue(Math.abs(end[0]) < 1e-8 * Math.abs(x[0]) && Math.abs(end[1]) < 1e-6 * (1 + Math.abs(x[1])),
-                "shooting did not converge: " + end[0] + ", " + end[1]);
+        if (!converged(end, x)) {
+            // strong tension or large loads: the continuation from zero loses its way; start Newton from the
+            // centre values of the finite-difference solution instead (a starting point only: the root is
+            // the shooting solution's own and is checked below)
+            AxisymmetricFvk.Solution fd = AxisymmetricFvk.continued(new AxisymmetricFvk(400, nu), n0, bigQ, 6);
+            x = newton(n0, bigQ, nu, new double[] {fd.centreSlopeDerivative(), fd.centreMembrane() - n0});
+            end = shoot(n0, bigQ, nu, x);
+        }
+        assertTrue(converged(end, x),
+                "shooting did not converge at n0 " + n0 + ", Q " + bigQ + ": " + end[0] + ", " + end[1] + " from " + x[0] + ", " + x[1]);
         double nEdge = n0 + end[3];
         double mEdge = end[2];
         double nCentre = n0 + x[1];
         double mCentre = (1 + nu) * x[0];
         return new double[] {nEdge + 6 * Math.abs(mEdge), nCentre + 6 * Math.abs(mCentre), -end[4]};
+    }
+
+    /** Edge conditions met: Φ(1) within 1e-6 of the centre slope, the force condition within 1e-4. */
+    private static boolean converged(double[] end, double[] x) {
+        return Math.abs(end[0]) < 1e-6 * Math.abs(x[0]) && Math.abs(end[1]) < 1e-4 * (1 + Math.abs(x[1]));
     }
 
     private static double[] newton(double n0, double bigQ, double nu, double[] start) {
@@ -310,37 +323,88 @@ class FoepplVonKarmanTest {
     @Test
     void discAgainstShootingFvkOverGrid() {
         // Independent shooting solution of the axisymmetric FvK equations (derived, no published source for the
-        // grid values). The code's disc uses a uniform equivalent membrane force; the measured differences are
-        // stated in docs/model.md. Tolerances are the measured maxima on this grid, rounded up: tension and zero
-        // pre-stress, edge face stress 3.5 %, deflection 12 %; compression at 0.8 of buckling with stretching,
-        // 15 % and 16 %. The 2 % asked for in issue 13 is met at the dense demo's binding instant but not over
-        // this whole grid (open, see docs/model.md).
+        // grid values). The code's disc is the uniform-force Bessel model corrected by a table computed with a
+        // finite-difference FvK solver (a different method from this shooting). Issue 13 asks for 2 % in edge
+        // stress; here edge and centre face stress and deflection are all held to 2 %, at parameters off the
+        // table's nodes: span/thickness, pre-stress from 0.9 of the buckling compression to strong tension,
+        // loads from plate-like to membrane-dominated, three Poisson's ratios.
         double maxEdge = 0;
+        double maxCentre = 0;
         double maxDefl = 0;
-        for (double aOverH : new double[] {25, 100}) {
-            double h = 1e-6;
-            double a = aOverH * h;
-            double d = EBAR * h * h * h / 12;
-            double sigmaCr = 14.682 * d / (a * a * h);
-            for (double pre : new double[] {-0.8 * sigmaCr, 0, 3 * sigmaCr}) {
-                for (double bigQ : new double[] {3, 30, 300}) {
-                    double q = bigQ * d * h / Math.pow(a, 4);
-                    CapResponse r = cap(SpanGeometry.disc(2 * a), h, pre).evaluate(T0, q);
-                    double[] ref = discReference(a, h, pre, q, r);
-                    // relative to the larger of the reference and the pre-stress (the edge stress passes zero in compression)
-                    double eEdge = Math.abs(r.edgeStressPa() - ref[0]) / Math.max(Math.abs(ref[0]), Math.abs(pre));
-                    double eDefl = Math.abs(r.deflectionM() / ref[2] - 1);
-                    maxEdge = Math.max(maxEdge, eEdge);
-                    maxDefl = Math.max(maxDefl, eDefl);
-                    String where = "a/h " + aOverH + ", σ0 " + pre + ", Q " + bigQ + ": edge " + r.edgeStressPa() + " vs "
-                            + ref[0] + ", δ " + r.deflectionM() + " vs " + ref[2];
-                    System.out.println("disc " + where + String.format(" | edge %.4f defl %.4f", eEdge, eDefl));
-                    boolean nearBuckling = pre < 0;
-                    assertTrue(nearBuckling ? eEdge < 0.15 && eDefl < 0.16 : eEdge < 0.035 && eDefl < 0.12, where);
+        double[][] cases = {{0.17, 25}, {0.25, 70}, {0.33, 180}};   // ν, a/h (the grid is dimensionless: one a/h per ν)
+        for (double[] nuAndSpan : cases) {
+            double nu = nuAndSpan[0];
+            double e = 100e9;
+            double eb = e / (1 - nu * nu);
+            for (double aOverH : new double[] {nuAndSpan[1]}) {
+                double h = 1e-6;
+                double a = aOverH * h;
+                double d = eb * h * h * h / 12;
+                double sigmaCr = 14.682 * d / (a * a * h);
+                for (double pre : new double[] {-0.9 * sigmaCr, -0.45 * sigmaCr, 0, 2.7 * sigmaCr, 13 * sigmaCr}) {
+                    for (double bigQ : new double[] {2.3, 17, 130, 2900}) {
+                        double q = bigQ * d * h / Math.pow(a, 4);
+                        CapStructure c = new CapStructure(FilmProperties.elastic(e, nu, CapStructure.SILICON_CTE_PER_K, T0, pre),
+                                h, SpanGeometry.disc(2 * a), CapStructure.SILICON_CTE_PER_K, MechanicalLimits.withSafetyFactor(1));
+                        CapResponse r = c.evaluate(T0, q);
+                        double scale = d / (a * a * h);
+                        double[] ref = discShooting(pre * h * a * a / d, bigQ, nu, 0, 0);
+                        double edge = ref[0] * scale;
+                        double centre = ref[1] * scale;
+                        double defl = ref[2] * h;
+                        // relative to the larger of the reference and the pre-stress (the stress passes zero in compression)
+                        double eEdge = Math.abs(r.edgeStressPa() - edge) / Math.max(Math.abs(edge), Math.abs(pre));
+                        double eCentre = Math.abs(r.centreStressPa() - centre) / Math.max(Math.abs(centre), Math.abs(pre));
+                        double eDefl = Math.abs(r.deflectionM() / defl - 1);
+                        maxEdge = Math.max(maxEdge, eEdge);
+                        maxCentre = Math.max(maxCentre, eCentre);
+                        maxDefl = Math.max(maxDefl, eDefl);
+                        String where = "ν " + nu + ", a/h " + aOverH + ", σ0 " + pre + ", Q " + bigQ + ": edge " + r.edgeStressPa()
+                                + " vs " + edge + ", centre " + r.centreStressPa() + " vs " + centre + ", δ " + r.deflectionM()
+                                + " vs " + defl;
+                        assertTrue(eEdge < 0.02 && eCentre < 0.02 && eDefl < 0.02, where);
+                    }
                 }
             }
         }
-        System.out.println("disc vs shooting FvK, largest relative difference: edge " + maxEdge + ", deflection " + maxDefl);
+        System.out.println("disc vs shooting FvK, largest relative difference: edge " + maxEdge + ", centre " + maxCentre
+                + ", deflection " + maxDefl);
+    }
+
+    @Test
+    void finiteDifferenceSolverAgreesWithShooting() {
+        // The table's generator (finite differences on a graded grid, Richardson) against the shooting solution
+        // above, two independent numerical methods for the same equations (derived, no published source): 1e-4.
+        for (double nu : new double[] {0.0, 0.3, 0.5}) {
+            for (double n0 : new double[] {-13.9, -5, 0, 40, 150}) {
+                for (double bigQ : new double[] {0.4, 25, 600}) {
+                    double[] ref = discShooting(n0, bigQ, nu, 0, 0);
+                    AxisymmetricFvk.Solution s = AxisymmetricFvk.extrapolated(n0, bigQ, nu, 200, 6, null);
+                    double scale = Math.max(Math.abs(n0), Math.abs(ref[0]));
+                    String where = "ν " + nu + ", n0 " + n0 + ", Q " + bigQ;
+                    assertEquals(ref[0], s.edgeFaceStress(), 1e-4 * scale, where + " edge");
+                    assertEquals(ref[1], s.centreFaceStress(), 1e-4 * Math.max(Math.abs(n0), Math.abs(ref[1])), where + " centre");
+                    assertEquals(ref[2], s.deflection(), 1e-4 * ref[2], where + " deflection");
+                    assertTrue(s.largestHoopMembrane() <= Math.max(s.edgeMembrane(), s.centreMembrane()) + 1e-9 * scale,
+                            where + ": the hoop force across a diameter stays below the larger of the centre and edge forces");
+                }
+            }
+        }
+    }
+
+    @Test
+    void bundledTableMatchesItsGenerator() {
+        // Regression of the bundled resource against its generator at a few nodes (a stale table fails here).
+        double[] out = new double[DiscCorrection.PARTS];
+        int[][] nodes = {{0, 0, 0}, {3, 30, 40}, {2, 50, 70}, {5, 10, 83}};
+        for (int[] n : nodes) {
+            double nu = n[0] * DiscCorrection.NU_STEP;
+            double[][] row = DiscCorrection.row(n[1], nu);
+            DiscCorrection.ratios(DiscCorrection.qAt(n[2]), DiscCorrection.n0At(n[1]), nu, out);
+            for (int p = 0; p < DiscCorrection.PARTS; p++) {
+                assertEquals(row[n[2]][p], out[p], 2e-6, "node " + java.util.Arrays.toString(n) + " part " + p);
+            }
+        }
     }
 
     @Test
@@ -362,7 +426,7 @@ class FoepplVonKarmanTest {
         double scale = d / (a * a * h);
         assertEquals(428e6, ref[0] * scale, 1e6, "independent FvK edge face stress");
         assertEquals(ref[0] * scale, r.edgeStressPa(), 0.02 * ref[0] * scale);
-        assertEquals(ref[2] * h, r.deflectionM(), 0.05 * ref[2] * h);
+        assertEquals(ref[2] * h, r.deflectionM(), 0.02 * ref[2] * h);
     }
 
     @Test
@@ -370,8 +434,7 @@ class FoepplVonKarmanTest {
         // Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, 2nd ed. (1959), large-deflection chapter:
         // clamped circular plate, energy solution w0/h + 0.488 (w0/h)³ = q a⁴/(64 D h) for ν = 0.3, said there to
         // agree with S. Way's (1934) exact series within a few per cent — from memory, unconfirmed. Checked on the
-        // independent shooting solution (within 5 %), and the code's disc against it (within 12 %, its measured
-        // deflection difference, see docs/model.md).
+        // independent shooting solution (within 5 %), and the code's disc against the shooting solution within 2 %.
         double nu = 0.3;
         for (double w0 : new double[] {0.5, 1.0}) {
             double bigQ = 64 * (w0 + 0.488 * w0 * w0 * w0);
@@ -384,7 +447,7 @@ class FoepplVonKarmanTest {
             CapStructure c = new CapStructure(FilmProperties.elastic(E, nu, CapStructure.SILICON_CTE_PER_K, T0, 0), h,
                     SpanGeometry.disc(2 * a), CapStructure.SILICON_CTE_PER_K, MechanicalLimits.withSafetyFactor(1));
             double delta = c.deflectionM(T0, bigQ * d * h / Math.pow(a, 4)) / h;
-            assertEquals(w0, delta, 0.12 * w0, "code's disc deflection at Q = " + bigQ);
+            assertEquals(ref[2], delta, 0.02 * ref[2], "code's disc deflection at Q = " + bigQ);
         }
     }
 }

@@ -326,7 +326,7 @@ class LowerBoundTest {
         int checked = 0;
         for (int trial = 0; trial < 12; trial++) {
             double hold = C0 + 290 + rnd.nextDouble() * 70;
-            double rate = (0.1 + rnd.nextDouble() * 0.5) / 60;
+            double rate = (0.05 + rnd.nextDouble() * 0.3) / 60;
             BakeResult r = BakeSimulator.simulate(base.withRecipe(new Recipe(base.recipeStartK(), List.of(
                     new Step.Ramp(hold, rate), new Step.Hold(12 * 3600)))), SimulationSettings.defaults().withSampleInterval(0));
             if (feasible(r)) {
