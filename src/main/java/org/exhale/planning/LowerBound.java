@@ -47,6 +47,8 @@ public final class LowerBound {
     /** Grid resolution of the joint bound: relative change of f between clock levels and across a cell. */
     static final double CLOCK_DELTA = 0.05;
     static final double CELL_DELTA = 0.03;
+    /** Time step of the envelope bound [s]: the bound is at most about one step early. */
+    static final double ENVELOPE_STEP_S = 1;
 
     private LowerBound() {
     }
@@ -84,6 +86,10 @@ public final class LowerBound {
         JointBound.Outcome j = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA).compute();
         list.add(new Estimate("joint", j.boundS(), quasiSteady, quasiSteady
                 ? "all components and both corners jointly, every monotone instantaneous limit, quasi-steady gas"
+                : "as for quasi-steady gas; the gas here is stored (not quasi-steady), so this is an estimate"));
+        EnvelopeBound.Outcome env = new EnvelopeBound(bake, limits, cap, spread, tool.maxRampUpKPerS(), ENVELOPE_STEP_S).compute();
+        list.add(new Estimate("envelope", env.boundS(), quasiSteady, quasiSteady
+                ? "every component at both corners followed in time under the wafer's ramp-rate envelope, quasi-steady gas"
                 : "as for quasi-steady gas; the gas here is stored (not quasi-steady), so this is an estimate"));
         double best = 0;
         for (Estimate e : list) {
