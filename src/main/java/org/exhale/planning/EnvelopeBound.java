@@ -25,6 +25,10 @@ final class EnvelopeBound {
     private static final double HORIZON_S = 2 * 86_400;
     /** Relative inflation of every rate and deflation of every gas floor against rounding. */
     private static final double SAFE = 1e-12;
+    /** The step is at least the time so far over this, so the bound's relative resolution is about its inverse. */
+    private static final double STEPS_PER_TIME = 20_000;
+    /** The longest step [s]. */
+    private static final double MAX_STEP_S = 5;
 
     /** The bound [s] (+∞ beyond the horizon), the time steps taken and the margin evaluations spent. */
     record Outcome(double boundS, int steps, long evaluations) {
@@ -48,7 +52,8 @@ final class EnvelopeBound {
 
     /**
      * @param rampUpKPerS the tool's fastest setpoint ramp up [K/s]
-     * @param stepS       the time step [s]; the bound is at most about one step early
+     * @param stepS       the shortest time step [s]; the step grows to t/20 000 (at most 5 s), and the bound's
+     *                    discretisation makes it at most a few steps early, never late
      */
     EnvelopeBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double rampUpKPerS, double stepS) {
         this.limits = limits;
@@ -83,13 +88,15 @@ final class EnvelopeBound {
         double guess = Double.NaN;
         double t = 0;
         int steps = 0;
-        double h = stepS;
+        double h = 0;
         while (t <= HORIZON_S) {
             if (residue(hot) <= target && residue(cold) <= target) {
                 // the check at the previous step's end failed, so no recipe met the target before t; it may meet it
                 // within the step just taken, so the bound is that step's start
-                return new Outcome(Math.max(0, t - (steps > 0 ? h : 0)), steps, evaluations);
+                return new Outcome(Math.max(0, t - h), steps, evaluations);
             }
+            // the step grows with time (a relative resolution of 1/STEPS_PER_TIME) so that a long bake stays cheap
+            h = Math.min(Math.max(stepS, t / STEPS_PER_TIME), MAX_STEP_S);
             // the hottest the wafer can be on [t, t + h]: the ramp-rate envelope and the lagged cap (both rise)
             double top = Math.min(wafer + rampUpKPerS * h, cap.wafer(t + h));
             // a box that holds every recipe's conversions on the step if the wafer stays below top
