@@ -23,8 +23,15 @@ import org.exhale.simulation.InstantLimits;
  */
 final class EnvelopeBound {
     private static final double HORIZON_S = 2 * 86_400;
-    /** Relative inflation of every rate and deflation of every gas floor against rounding. */
+    /** Relative deflation of every gas floor and inflation of every box rate against rounding. */
     private static final double SAFE = 1e-12;
+    /**
+     * Relative inflation of every reduced-time increment: covers the rounding of the running sums (at most
+     * 1e-16 per addition over fewer than 10⁶ steps).
+     */
+    private static final double SUM_SAFE = 1e-9;
+    /** Times are sums of steps in double precision: the cap is read this much later, the bound reported this much earlier [s]. */
+    private static final double TIME_SAFE_S = 1e-6;
     /** The step is at least the time so far over this, so the bound's relative resolution is about its inverse. */
     private static final double STEPS_PER_TIME = 20_000;
     /** The longest step [s]. */
@@ -93,16 +100,16 @@ final class EnvelopeBound {
             if (residue(hot) <= target && residue(cold) <= target) {
                 // the check at the previous step's end failed, so no recipe met the target before t; it may meet it
                 // within the step just taken, so the bound is that step's start
-                return new Outcome(Math.max(0, t - h), steps, evaluations);
+                return new Outcome(Math.max(0, t - h - TIME_SAFE_S), steps, evaluations);
             }
             // the step grows with time (a relative resolution of 1/STEPS_PER_TIME) so that a long bake stays cheap
             h = Math.min(Math.max(stepS, t / STEPS_PER_TIME), MAX_STEP_S);
             // the hottest the wafer can be on [t, t + h]: the ramp-rate envelope and the lagged cap (both rise)
-            double top = Math.min(wafer + rampUpKPerS * h, cap.wafer(t + h));
+            double top = Math.min(wafer + rampUpKPerS * h + 1e-9, cap.wafer(t + h + TIME_SAFE_S));
             // a box that holds every recipe's conversions on the step if the wafer stays below top
             for (int j = 0; j < k; j++) {
-                boxHot[j] = hot[j] + h * comps[j].rateConstant(top + spread) * (1 + SAFE) + Double.MIN_NORMAL;
-                boxCold[j] = cold[j] + h * comps[j].rateConstant(top - spread) * (1 + SAFE) + Double.MIN_NORMAL;
+                boxHot[j] = hot[j] + h * comps[j].rateConstant(top + spread) * (1 + 2 * SUM_SAFE) + Double.MIN_NORMAL;
+                boxCold[j] = cold[j] + h * comps[j].rateConstant(top - spread) * (1 + 2 * SUM_SAFE) + Double.MIN_NORMAL;
                 floorHot[j] = leastF(j, boxHot[j]);
                 floorCold[j] = leastF(j, boxCold[j]);
             }
@@ -114,8 +121,8 @@ final class EnvelopeBound {
             guess = adm;
             double bar = Math.min(top, adm);
             for (int j = 0; j < k; j++) {
-                hot[j] += h * comps[j].rateConstant(bar + spread) * (1 + SAFE);
-                cold[j] += h * comps[j].rateConstant(bar - spread) * (1 + SAFE);
+                hot[j] += h * comps[j].rateConstant(bar + spread) * (1 + SUM_SAFE);
+                cold[j] += h * comps[j].rateConstant(bar - spread) * (1 + SUM_SAFE);
             }
             wafer = bar;
             t += h;
