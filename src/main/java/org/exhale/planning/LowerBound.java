@@ -5,7 +5,7 @@ import org.exhale.simulation.InstantLimits;
 
 /**
  * The lower bounds on the bake time of MODEL.md §9, each labelled with whether it is rigorous for
- * the case's gas regime. Three are computed (proofs in docs/model.md, "Lower bounds"):
+ * the case's gas regime. Four are computed (proofs in docs/model.md, "Lower bounds"):
  * <ul>
  *   <li><b>ceiling</b>: the cold corner under the lagged temperature cap, ignoring every other limit;
  *       rigorous in any regime ({@link VentBound});</li>
@@ -13,9 +13,14 @@ import org.exhale.simulation.InstantLimits;
  *       can vent at the admissible pressure; rigorous in any regime ({@link VentBound});</li>
  *   <li><b>joint</b>: a minimum-time programme over all components' conversions with every monotone
  *       instantaneous limit at both corners, the gas taken quasi-steady; rigorous where the gas is
- *       quasi-steady, otherwise reported as an estimate ({@link JointBound}).</li>
+ *       quasi-steady, otherwise reported as an estimate ({@link JointBound});</li>
+ *   <li><b>envelope</b>: every component's conversion at both corners followed forward in time under an
+ *       upper envelope of the wafer temperature (the tool's fastest ramp, the lagged cap, the highest
+ *       admissible temperature at the conversions' upper bounds); rigorous where the gas is
+ *       quasi-steady, otherwise an estimate ({@link EnvelopeBound}). The tight one for a single
+ *       component: it keeps the cold corner's lag behind the hot one and the ramp rate.</li>
  * </ul>
- * The reported bound is the largest rigorous one. Every discretisation error of the three lowers
+ * The reported bound is the largest rigorous one. Every discretisation error of the four lowers
  * them. The one premise not proved by the code is that at fixed conversions the admissible
  * temperatures form an interval below the highest one found (the bisection of
  * {@link #highestFeasible}); docs/model.md says when that holds.

@@ -128,6 +128,12 @@ class LowerBoundTest {
         neverBeaten(sharedPressureBudget(), 20261204L, 80);
     }
 
+    @Test
+    void randomRecipesNearTheBoundaryNeverBeatTheBoundOneComponent() {
+        // one component, ±2 K, 10 s lag, pressure binding: the case where the envelope bound is the tight one
+        neverBeaten(CaseYamlReader.read(Path.of("data/bench/one-component-porous.yaml")).bake(), 20261207L, 40);
+    }
+
     /** Three components (the joint programme's two-dimensional cells), porous cap, pressure binding. */
     static BakeCase threeComponents() {
         BakeCase b = porousPressureBinds();
