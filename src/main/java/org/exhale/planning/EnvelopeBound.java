@@ -113,12 +113,16 @@ final class EnvelopeBound {
                 floorHot[j] = leastF(j, boxHot[j]);
                 floorCold[j] = leastF(j, boxCold[j]);
             }
-            // inside the box the least gas is at the box's top conversions (f unimodal: its least on [α0, ᾱ] at an end)
+            // inside the box each component gives at least the gas of its least f on [α0, ᾱ] (f unimodal: at an end)
             double adm = LowerBound.highestFeasible(temp -> margin(temp, floorHot, floorCold), top, floorK, guess);
             if (Double.isNaN(adm)) {
-                adm = floorK;
+                // no admissible temperature found below top: no recipe is feasible here, but nothing is claimed from it
+                // (where the admissible temperatures extend upwards, as a strength limit that relaxes on heating can make
+                // them, the search may find none below top while some lie above it)
+                adm = top;
+            } else {
+                guess = adm;
             }
-            guess = adm;
             double bar = Math.min(top, adm);
             for (int j = 0; j < k; j++) {
                 hot[j] += h * comps[j].rateConstant(bar + spread) * (1 + SUM_SAFE);
