@@ -133,7 +133,7 @@ final class PlanCommand implements Callable<Integer> {
         m.put("lower_bound_note", p.boundRigorous()
                 ? "lower_bound_s is the largest rigorous bound (" + boundKind(p.lowerBound()) + "): no recipe within the limits "
                   + "can be shorter" + (p.lowerBound().quasiSteady() ? "" : "; the gas is stored here (not quasi-steady), so the "
-                  + "joint bound is only an estimate")
+                  + "joint and envelope bounds are only estimates")
                 : "the bound is an estimate here, not a guarantee");
         if (p.feasible()) {
             m.put("margins", SummaryJsonWriter.margins(p.verification().margins()));
