@@ -450,4 +450,32 @@ class FoepplVonKarmanTest {
             assertEquals(ref[2], delta, 0.02 * ref[2], "code's disc deflection at Q = " + bigQ);
         }
     }
+
+    @Test
+    void thinDiscApproachesPublishedMembraneSolutions() {
+        // Membrane limit of the clamped circular plate (a/h = 1000, δ/h 30 … 140, ν = 0.3):
+        // Hencky's membrane solution as given by Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, 2nd ed.
+        // (1959), large-deflection chapter: w0 = 0.662 a (q a/(E h))^(1/3), radial stress at the edge
+        // 0.328 (E q² a²/h²)^(1/3) — from memory, unconfirmed; and the bulge-test relation of Small & Nix,
+        // J. Mater. Res. 7 (1992) 1553: q = (8/3)(1 − 0.24ν) E h w0³/((1 − ν) a⁴) (shared/CHECKS.md, an energy
+        // approximation). The plate's bending stiffness lowers the deflection by a boundary layer of relative width
+        // 1/(ka) ≈ 0.5–1 % here, so deflections are held to 2.5 %, the edge membrane stress to 1 %.
+        double e = 100e9;
+        double nu = 0.3;
+        double h = 0.1e-6;
+        double a = 100e-6;
+        CapStructure c = new CapStructure(FilmProperties.elastic(e, nu, CapStructure.SILICON_CTE_PER_K, T0, 0), h,
+                SpanGeometry.disc(2 * a), CapStructure.SILICON_CTE_PER_K, MechanicalLimits.withSafetyFactor(1));
+        for (double q : new double[] {1e4, 1e5, 1e6}) {
+            CapResponse r = c.evaluate(T0, q);
+            double hencky = 0.662 * a * Math.cbrt(q * a / (e * h));
+            double smallNix = Math.cbrt(q * (1 - nu) * Math.pow(a, 4) / ((8.0 / 3) * (1 - 0.24 * nu) * e * h));
+            double edgeMembrane = 0.328 * Math.cbrt(e * q * q * a * a / (h * h));
+            assertEquals(hencky, r.deflectionM(), 0.025 * hencky, "Hencky deflection at " + q + " Pa");
+            assertEquals(smallNix, r.deflectionM(), 0.025 * smallNix, "Small & Nix deflection at " + q + " Pa");
+            // the edge membrane stress converges more slowly (−1.7 % at δ/h = 30): checked from δ/h = 65 on
+            assertEquals(edgeMembrane, r.edgeStressPa() - r.bendingStressPa(), (q < 1e5 ? 0.02 : 0.01) * edgeMembrane,
+                    "Hencky edge membrane stress at " + q + " Pa");
+        }
+    }
 }
