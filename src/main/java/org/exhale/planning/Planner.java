@@ -243,9 +243,7 @@ public final class Planner {
      * (bisection between the failed and a passing margin). Null when no verified recipe came out.
      */
     private PlanResult riderPlan(LowerBound.Result bound, boolean rigorous) {
-        Recipe probe = new Recipe(startK, List.of(new Step.Ramp(capK, tool.maxRampUpKPerS()), new Step.Hold(600)));
-        BakeResult pr = BakeSimulator.simulate(bake.withRecipe(probe), SimulationSettings.defaults().withSampleInterval(0));
-        evaluations++;
+        BakeResult pr = probe();
         GasRegime regime = pr.corners().stream().anyMatch(c -> c.regime() == GasRegime.FULL_GAS)
                 ? GasRegime.FULL_GAS : GasRegime.QUASI_STEADY;
         double gasScale = 1;
@@ -485,10 +483,19 @@ public final class Planner {
     }
 
     private boolean quasiSteady() {
-        Recipe probe = new Recipe(startK, List.of(new Step.Ramp(capK, tool.maxRampUpKPerS()), new Step.Hold(600)));
-        BakeResult r = BakeSimulator.simulate(bake.withRecipe(probe), SimulationSettings.defaults().withSampleInterval(0));
-        evaluations++;
-        return r.regime() == GasRegime.QUASI_STEADY;
+        return probe().regime() == GasRegime.QUASI_STEADY;
+    }
+
+    /** The probe: the fastest ramp to the cap and a short hold, simulated once for the gas regime (bound and rider). */
+    private BakeResult probe;
+
+    private BakeResult probe() {
+        if (probe == null) {
+            Recipe r = new Recipe(startK, List.of(new Step.Ramp(capK, tool.maxRampUpKPerS()), new Step.Hold(600)));
+            probe = BakeSimulator.simulate(bake.withRecipe(r), SimulationSettings.defaults().withSampleInterval(0));
+            evaluations++;
+        }
+        return probe;
     }
 
     // ------------------------------------------------------------------ evaluation
