@@ -1,9 +1,14 @@
 package org.exhale.io;
 
 import java.util.Locale;
+import java.util.regex.Pattern;
 
 /** Number formatting for output files: locale-independent, round-trip precise, never NaN. */
 public final class Numbers {
+    /** Trailing zeros of the mantissa before the exponent, and of a fixed-point number (compiled once: a history has ~10⁵ numbers). */
+    private static final Pattern MANTISSA_ZEROS = Pattern.compile("\\.?0+e");
+    private static final Pattern TRAILING_ZEROS = Pattern.compile("\\.?0+$");
+
     private Numbers() {
     }
 
@@ -17,9 +22,9 @@ public final class Numbers {
         }
         String s = String.format(Locale.ROOT, "%.9g", v);
         if (s.contains("e")) {
-            return s.replaceFirst("\\.?0+e", "e");
+            return MANTISSA_ZEROS.matcher(s).replaceFirst("e");
         }
-        return s.contains(".") ? s.replaceFirst("\\.?0+$", "") : s;
+        return s.contains(".") ? TRAILING_ZEROS.matcher(s).replaceFirst("") : s;
     }
 
     public static String fixed(double v, int decimals) {
