@@ -210,11 +210,53 @@ final class Rider {
                     d = Math.max(fastest, Planner.ceilTo(knotTimesS[Math.min(i, knotTimesS.length - 1)], ts));
                 }
             }
+            if (end > sp && end < capK - 1e-9 && (lastRamp || i == knotTimesS.length - 1)) {
+                // the final ramp: a longer one may end higher and shorten the hold after it by more than it adds
+                double[] better = longerFinalRamp(st, end, d, ts, minStep);
+                end = better[0];
+                d = better[1];
+            }
             steps.add(Math.abs(end - sp) < 1e-9 ? new Step.Hold(d) : new Step.Ramp(end, Math.abs(end - sp) / d));
             st.advance(end, d);
             used++;
         }
         return finish(st, steps, used, maxRamps, ts, minStep, ok);
+    }
+
+    /**
+     * The final ramp to {@code endK} over {@code d}, or a longer one (1.5, 2, 3 times) to the highest
+     * admissible grid setpoint over its duration, whichever meets the target sooner with the hold after it:
+     * {end, duration}.
+     */
+    private double[] longerFinalRamp(BakeStepper st, double endK, double d, double ts, double minStep) {
+        double sp = st.setpointK();
+        double[] best = {endK, d};
+        double bestS = finishS(st, endK, d, ts, minStep);
+        for (double f : new double[]{1.5, 2, 3}) {
+            double dl = Planner.ceilTo(f * d, ts);
+            double hiK = Math.min(capK, Planner.floorSetpoint(sp + tool.maxRampUpKPerS() * dl, tool.setpointStepK()));
+            if (hiK <= best[0] + 1e-9) {
+                continue;
+            }
+            double e = highestOnGrid(st, dl, best[0], hiK, best[0]);
+            if (Double.isNaN(e) || e <= best[0] + 1e-9) {
+                continue;
+            }
+            double total = finishS(st, e, dl, ts, minStep);
+            if (total < bestS) {
+                bestS = total;
+                best = new double[]{e, dl};
+            }
+        }
+        return best;
+    }
+
+    /** The ramp's duration plus the hold after it that takes every corner to the target (infinite if none). */
+    private double finishS(BakeStepper st, double endK, double d, double ts, double minStep) {
+        BakeStepper s = st.copy();
+        s.advance(endK, d);
+        double hold = holdToTarget(s, ts, minStep);
+        return Double.isNaN(hold) ? Double.POSITIVE_INFINITY : d + hold;
     }
 
     /** One more ramp to the cap when the target is far, then the final hold and the cool-down. */
