@@ -72,8 +72,8 @@ final class Rider {
     }
 
     /** A ride: its time to the target (NaN when it never gets there) and its setpoint path. */
-    record Ride(double timeToTargetS, double[] timesS, double[] setpointsK, boolean admissibleThroughout,
-                double reachesCapS) {
+    record Ride(double timeToTargetS, double[] timesS, double[] setpointsK, double[] unconverted,
+                boolean admissibleThroughout, double reachesCapS) {
     }
 
     /** A recipe built along the ride, with its predicted time to target at the end of the final hold. */
@@ -88,7 +88,7 @@ final class Rider {
     Ride ride(double controlS, double horizonS) {
         BakeStepper st = start();
         List<double[]> path = new ArrayList<>();
-        path.add(new double[]{0, startK});
+        path.add(new double[]{0, startK, st.unconverted()});
         boolean ok = true;
         double lastIncrement = tool.maxRampUpKPerS() * controlS;
         double reachesCap = Double.NaN;
@@ -110,32 +110,54 @@ final class Rider {
             lastIncrement = next - sp;
             BakeStepper before = st.copy();
             st.advance(next, controlS);
-            path.add(new double[]{st.timeS(), next});
+            path.add(new double[]{st.timeS(), next, st.unconverted()});
             if (Double.isNaN(reachesCap) && next >= capK - 1e-9) {
                 reachesCap = st.timeS();
             }
             if (st.unconverted() <= residue) {
                 double tx = crossing(before, next, controlS);
-                return new Ride(tx, column(path, 0), column(path, 1), ok, reachesCap);
+                return new Ride(tx, column(path, 0), column(path, 1), column(path, 2), ok, reachesCap);
             }
         }
-        return new Ride(Double.NaN, column(path, 0), column(path, 1), ok, reachesCap);
+        return new Ride(Double.NaN, column(path, 0), column(path, 1), column(path, 2), ok, reachesCap);
+    }
+
+    /**
+     * How a recipe is built along the ride. The ride's own times serve when the recipe keeps pace with
+     * the ride; where the setpoint grid rounds ramp ends down, the recipe falls behind, and ramps timed
+     * on the ride's clock then end before the recipe has got as far, so its last ramp ends short of the
+     * ride's final climb and a long hold at a low setpoint follows. Measuring each ramp from where the
+     * recipe's progress stands on the ride keeps the knots at the same progress.
+     */
+    enum Rule {
+        /** Knots at the ride's times; a ramp whose end the grid rounded down is made as short as admissible. */
+        RIDE_TIMES_SHORTENED,
+        /** Knots at the ride's times, each ramp as long as the ride's interval. */
+        RIDE_TIMES,
+        /**
+         * Each ramp lasts as long as the ride took from the recipe's present progress (its unconverted
+         * fraction) to the knot; a ramp whose end the grid rounded below the ride's setpoint there is
+         * raised one grid step when a ramp up to half again as long reaches it admissibly.
+         */
+        PROGRESS
     }
 
     /**
      * A recipe along the ride: ramps ending at the ride's times {@code knotTimesS} (after the start),
      * each to the highest admissible setpoint on the tool's grid, then the final hold and the
      * cool-down. At most {@code maxRamps} ramps, the last one to the cap when the knots end below it.
-     * With {@code shorten}, a ramp whose end the setpoint grid rounded down is made as short as is
-     * still admissible; that gains time, but can leave the bake nearer a limit that tightens under a
-     * hold (autocatalytic kinetics), so the planner builds both ways.
+     * The {@link Rule} sets how long each ramp lasts. Shortening a ramp whose end the grid rounded
+     * down gains time, but can leave the bake nearer a limit that tightens under a hold (autocatalytic
+     * kinetics); no rule is best on every case, so the planner builds by each and keeps the shortest.
      */
-    Built build(Ride ride, double[] knotTimesS, int maxRamps, boolean shorten) {
+    Built build(Ride ride, double[] knotTimesS, int maxRamps, Rule rule) {
         BakeStepper st = start();
         List<Step> steps = new ArrayList<>();
         double ts = Math.max(tool.timeStepS(), 1e-3);
         double minStep = Math.max(tool.minStepS(), ts);
         boolean ok = true;
+        boolean progress = rule == Rule.PROGRESS;
+        boolean shorten = rule == Rule.RIDE_TIMES_SHORTENED;
         double prev = 0;
         int used = 0;
         for (int i = 0; i < knotTimesS.length && used < maxRamps; i++) {
@@ -143,7 +165,11 @@ final class Rider {
             if (sp >= capK - 1e-9) {
                 break;
             }
-            double d = Math.max(Planner.ceilTo(knotTimesS[i] - prev, ts), minStep);
+            double from = progress ? rideTimeAt(ride, st.unconverted()) : prev;
+            if (progress && knotTimesS[i] - from < minStep && i < knotTimesS.length - 1) {
+                continue;   // the recipe is already as far as the ride was at this knot
+            }
+            double d = Math.max(Planner.ceilTo(knotTimesS[i] - from, ts), minStep);
             prev = knotTimesS[i];
             boolean lastRamp = used == maxRamps - 1;
             double hiK = Math.min(capK, Planner.floorSetpoint(sp + tool.maxRampUpKPerS() * d, tool.setpointStepK()));
@@ -155,6 +181,15 @@ final class Rider {
                     ok = false;
                     end = Math.max(startK, Planner.ceilTo(loK - org.exhale.PhysicalConstants.ZERO_CELSIUS_K,
                             Math.max(tool.setpointStepK(), 0)) + org.exhale.PhysicalConstants.ZERO_CELSIUS_K);
+                } else if (progress && end < capK - 1e-9 && tool.setpointStepK() > 0
+                        && Planner.floorSetpoint(interpolate(ride, knotTimesS[i]), tool.setpointStepK()) > end + 1e-9) {
+                    // the grid rounded the end below the ride's setpoint there: reach the next grid value a little later
+                    double up = Math.min(capK, end + tool.setpointStepK());
+                    double later = shortestTo(st, up, d, Planner.ceilTo(1.5 * d, ts), ts);
+                    if (!Double.isNaN(later)) {
+                        d = later;
+                        end = up;
+                    }
                 } else if (end > sp && end < capK - 1e-9 && shorten) {
                     // the grid rounded the end down: get there sooner, as fast as is admissible
                     double fastest = Math.max(Planner.ceilTo((end - sp) / tool.maxRampUpKPerS(), ts), minStep);
@@ -175,11 +210,53 @@ final class Rider {
                     d = Math.max(fastest, Planner.ceilTo(knotTimesS[Math.min(i, knotTimesS.length - 1)], ts));
                 }
             }
+            if (end > sp && end < capK - 1e-9 && (lastRamp || i == knotTimesS.length - 1)) {
+                // the final ramp: a longer one may end higher and shorten the hold after it by more than it adds
+                double[] better = longerFinalRamp(st, end, d, ts, minStep);
+                end = better[0];
+                d = better[1];
+            }
             steps.add(Math.abs(end - sp) < 1e-9 ? new Step.Hold(d) : new Step.Ramp(end, Math.abs(end - sp) / d));
             st.advance(end, d);
             used++;
         }
         return finish(st, steps, used, maxRamps, ts, minStep, ok);
+    }
+
+    /**
+     * The final ramp to {@code endK} over {@code d}, or a longer one (1.5, 2, 3 times) to the highest
+     * admissible grid setpoint over its duration, whichever meets the target sooner with the hold after it:
+     * {end, duration}.
+     */
+    private double[] longerFinalRamp(BakeStepper st, double endK, double d, double ts, double minStep) {
+        double sp = st.setpointK();
+        double[] best = {endK, d};
+        double bestS = finishS(st, endK, d, ts, minStep);
+        for (double f : new double[]{1.5, 2, 3}) {
+            double dl = Planner.ceilTo(f * d, ts);
+            double hiK = Math.min(capK, Planner.floorSetpoint(sp + tool.maxRampUpKPerS() * dl, tool.setpointStepK()));
+            if (hiK <= best[0] + 1e-9) {
+                continue;
+            }
+            double e = highestOnGrid(st, dl, best[0], hiK, best[0]);
+            if (Double.isNaN(e) || e <= best[0] + 1e-9) {
+                continue;
+            }
+            double total = finishS(st, e, dl, ts, minStep);
+            if (total < bestS) {
+                bestS = total;
+                best = new double[]{e, dl};
+            }
+        }
+        return best;
+    }
+
+    /** The ramp's duration plus the hold after it that takes every corner to the target (infinite if none). */
+    private double finishS(BakeStepper st, double endK, double d, double ts, double minStep) {
+        BakeStepper s = st.copy();
+        s.advance(endK, d);
+        double hold = holdToTarget(s, ts, minStep);
+        return Double.isNaN(hold) ? Double.POSITIVE_INFINITY : d + hold;
     }
 
     /** One more ramp to the cap when the target is far, then the final hold and the cool-down. */
@@ -359,6 +436,22 @@ final class Rider {
             }
         }
         return c0 + pass * step;
+    }
+
+    /** The time at which the ride had converted as far as {@code u} (linear between its points). */
+    static double rideTimeAt(Ride ride, double u) {
+        double[] ts = ride.timesS();
+        double[] us = ride.unconverted();
+        if (u >= us[0]) {
+            return 0;
+        }
+        for (int i = 1; i < ts.length; i++) {
+            if (us[i] <= u) {
+                double f = (us[i - 1] - u) / (us[i - 1] - us[i]);
+                return ts[i - 1] + f * (ts[i] - ts[i - 1]);
+            }
+        }
+        return ts[ts.length - 1];
     }
 
     private static double interpolate(Ride ride, double t) {

@@ -92,6 +92,24 @@ class PlannerOptimalityTest {
         assertTrue(p.rideS() >= p.lowerBound().boundS(), "ride " + p.rideS() + " s beats the bound " + p.lowerBound().boundS());
     }
 
+    /**
+     * Two components under a dense cap that vents only by permeation (stored gas, 20 s wafer lag,
+     * ±1.5 K spread, the tool's 1 °C grid and 12 steps), about a second of planning: the plan keeps
+     * within 3 % of the closed-loop ride (the project's aim, issue 14; no published source). Ramps timed
+     * on the ride's own clock fell about 10 min behind it where the grid rounded their ends down, the
+     * last ramp then ended before the ride's fast final climb, and a 30 min hold at 315 °C followed:
+     * plan/ride 1.099 before the ramps were measured from the recipe's progress on the ride.
+     */
+    @Test
+    void twoComponentStoredGasPlanComesWithinThreePercentOfTheRide() {
+        CaseFile cf = bench("two-component-stored.yaml");
+        PlanResult p = Planner.plan(cf.bake(), cf.tool());
+        assertTrue(p.verified(), "not verified: " + p.infeasibility());
+        assertTrue(p.recipe().steps().size() <= cf.tool().maxSteps(), "steps " + p.recipe().steps().size());
+        assertTrue(p.rideRatio() <= 1.03, "plan/ride " + p.rideRatio());
+        assertTrue(p.rideS() >= p.lowerBound().boundS(), "ride " + p.rideS() + " s beats the bound " + p.lowerBound().boundS());
+    }
+
     /** A cap whose own stress fails a limit before any gas gets advice about the cap's stress, not the pressure. */
     @Test
     void capStressFailingAtTheStartIsAdvisedAsSuch() throws Exception {
