@@ -59,6 +59,8 @@ final class JointBound {
     private final double[][] cellHi;
     private final double[][] cellF;
     private final double[] rhoTop;
+    /** Per other component and grid point: a lower bound on the cold corner's conversion when the hot one is there. */
+    private final double[][] cellColdLo;
 
     JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta) {
         this.limits = limits;
@@ -114,6 +116,7 @@ final class JointBound {
         cellHi = new double[others.length][];
         cellF = new double[others.length][];
         rhoTop = new double[others.length];
+        cellColdLo = new double[others.length][];
         for (int o = 0; o < others.length; o++) {
             int j = others[o];
             int n = cells[o].length;
@@ -126,6 +129,10 @@ final class JointBound {
                 cellF[o][p] = comps[j].model().f(cells[o][p]);
             }
             rhoTop[o] = rho(j, hotCeilingK);
+            cellColdLo[o] = new double[n];
+            for (int p = 0; p < n; p++) {
+                cellColdLo[o][p] = coldAtLeast(j, cellLo[o][p]);
+            }
         }
     }
 
@@ -245,65 +252,29 @@ final class JointBound {
 
     Outcome compute() {
         int nl = levels.length;
-        double best = Double.POSITIVE_INFINITY;
         double[] tau = new double[cellCount];
         Arrays.fill(tau, Double.POSITIVE_INFINITY);
         tau[0] = 0;
         double[] next = new double[cellCount];
         java.util.HashMap<Long, Double> memoPrev = null;
-        int[] c = new int[others.length];
-        int[] cp = new int[others.length];
-        double hotMax = hotCeilingK;
+        // H: an upper bound on the hot corner's temperature over every move made so far by a recipe whose path runs
+        // through regular nodes only (docs/model.md, "Lower bounds", 2)
+        double hotSoFar = floorK;
+        best = Double.POSITIVE_INFINITY;
         for (int i = 0; i + 1 < nl; i++) {
-            Arrays.fill(next, Double.POSITIVE_INFINITY);
-            java.util.HashMap<Long, Double> memo = new java.util.HashMap<>();
-            double fLo = rt[q].lower(levels[i + 1]) - rt[q].upper(levels[i]);
-            double fHi = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
-            fLo = Math.max(fLo, 0);
-            double clockFloor = rt[q].minF(levels[i], levels[i + 1]);
-            double clockColdFloor = rt[q].minF(rt[q].alpha0(), coldAtMost(q, levels[i + 1]));
-            boolean any = false;
-            for (int flat = 0; flat < cellCount; flat++) {
-                double t0 = tau[flat];
-                if (!(t0 < best) || t0 > HORIZON_S) {
-                    continue;
-                }
-                any = true;
-                decode(flat, c);
-                // could the target be reached during a move out of this node? (the others can advance at most
-                // ρ_j(hottest) ΔF_q in reduced time while the clock rises to the next level)
-                if (capable(i, c, fHi, hotMax)) {
-                    best = Math.min(best, t0);
-                    continue;
-                }
-                // landing cells c' ≥ c, dimension by dimension while the move can still be made
-                System.arraycopy(c, 0, cp, 0, c.length);
-                while (true) {
-                    double d = moveTime(i, c, cp, t0, fLo, fHi, clockFloor, clockColdFloor, memo, memoPrev);
-                    boolean feasible = d >= 0;
-                    if (feasible) {
-                        int to = encode(cp);
-                        next[to] = Math.min(next[to], t0 + d);
-                    }
-                    // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
-                    int o = 0;
-                    while (o < others.length) {
-                        if (cp[o] + 1 < cells[o].length - 1 && reachable(i, o, c[o], cp[o] + 1, fHi)) {
-                            cp[o]++;
-                            break;
-                        }
-                        cp[o] = c[o];
-                        o++;
-                    }
-                    if (o == others.length) {
-                        break;
-                    }
-                }
-            }
-            if (!any) {
+            // stage 1: this level's moves with the cold corner relaxed by ρ at the hot ceiling, for their hottest temperature
+            java.util.HashMap<Long, Double> memo1 = new java.util.HashMap<>();
+            Level first = level(i, tau, null, hotCeilingK, memo1, memoPrev);
+            if (!first.any) {
                 break;
             }
-            memoPrev = memo;
+            double h1 = Math.max(hotSoFar, first.hottest);
+            // stage 2: the same moves with ρ at that temperature: every recipe's hot corner has been no hotter so far
+            java.util.HashMap<Long, Double> memo2 = new java.util.HashMap<>();
+            Arrays.fill(next, Double.POSITIVE_INFINITY);
+            Level second = level(i, tau, next, h1, memo2, memo1);
+            hotSoFar = Math.max(hotSoFar, Math.min(h1, second.hottest));
+            memoPrev = memo2;
             double[] swap = tau;
             tau = next;
             next = swap;
@@ -313,6 +284,77 @@ final class JointBound {
             best = Math.min(best, tau[flat]);
         }
         return new Outcome(best > HORIZON_S ? Double.POSITIVE_INFINITY : best, q, levels.length, cellCount, evaluations);
+    }
+
+    /** The least τ of the nodes from which the target may be reached within a move (updated as levels are processed). */
+    private double best;
+
+    /** What one level's moves gave: whether any node was live, and the hottest admissible temperature of its moves. */
+    private record Level(boolean any, double hottest) {
+    }
+
+    /**
+     * The moves out of level i's live nodes. With {@code next} null nothing is recorded (stage 1); the cold corner's
+     * conversions are bounded with ρ at {@code hotMaxK}, an upper bound on the hot corner's temperature over every
+     * move up to and including this level's.
+     */
+    private Level level(int i, double[] tau, double[] next, double hotMaxK, java.util.HashMap<Long, Double> memo,
+                        java.util.HashMap<Long, Double> memoPrev) {
+        int[] c = new int[others.length];
+        int[] cp = new int[others.length];
+        double[] rhoNow = new double[k];
+        for (int j = 0; j < k; j++) {
+            rhoNow[j] = rhoColdAt(j, hotMaxK);
+        }
+        double fLo = Math.max(0, rt[q].lower(levels[i + 1]) - rt[q].upper(levels[i]));
+        double fHi = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
+        double clockFloor = rt[q].minF(levels[i], levels[i + 1]);
+        double clockColdFloor = rt[q].minF(coldAtLeast(q, rt[q].lower(levels[i])), coldAtMost(q, levels[i + 1], rhoNow[q]));
+        boolean any = false;
+        double hottest = floorK;
+        for (int flat = 0; flat < cellCount; flat++) {
+            double t0 = tau[flat];
+            if (!(t0 < best) || t0 > HORIZON_S) {
+                continue;
+            }
+            any = true;
+            decode(flat, c);
+            // could the target be reached during a move out of this node? (the others can advance at most
+            // ρ_j(hottest) ΔF_q in reduced time while the clock rises to the next level)
+            if (capable(i, c, fHi)) {
+                if (next != null) {
+                    best = Math.min(best, t0);
+                }
+                continue;
+            }
+            // landing cells c' ≥ c, dimension by dimension while the move can still be made
+            System.arraycopy(c, 0, cp, 0, c.length);
+            while (true) {
+                double adm = admissible(i, c, cp, clockFloor, clockColdFloor, rhoNow, memo, memoPrev);
+                hottest = Math.max(hottest, Math.min(adm, hotCeilingK));
+                if (next != null) {
+                    double d = moveTime(adm, c, cp, t0, fLo, fHi);
+                    if (d >= 0) {
+                        int to = encode(cp);
+                        next[to] = Math.min(next[to], t0 + d);
+                    }
+                }
+                // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
+                int o = 0;
+                while (o < others.length) {
+                    if (cp[o] + 1 < cells[o].length - 1 && reachable(i, o, c[o], cp[o] + 1, fHi)) {
+                        cp[o]++;
+                        break;
+                    }
+                    cp[o] = c[o];
+                    o++;
+                }
+                if (o == others.length) {
+                    break;
+                }
+            }
+        }
+        return new Level(any, hottest);
     }
 
     private int encode(int[] idx) {
@@ -349,29 +391,68 @@ final class JointBound {
         return lo <= rhoTop[o] * fHi * (1 + 1e-12);
     }
 
-    private boolean capable(int i, int[] c, double fHi, double hotMax) {
-        double u = w[q] * (1 - coldAtMost(q, levels[i + 1]));
+    private boolean capable(int i, int[] c, double fHi) {
+        double u = w[q] * (1 - coldAtMost(q, levels[i + 1], rhoCold[q]));
         for (int o = 0; o < others.length; o++) {
             int j = others[o];
             double reach = cellHi[o][c[o] + 1] + rhoTop[o] * fHi;
-            u += w[j] * (1 - coldAtMost(j, rt[j].conversionAtMost(reach)));
+            u += w[j] * (1 - coldAtMost(j, rt[j].conversionAtMost(reach), rhoCold[j]));
         }
         return u <= target;
     }
 
-    /** An upper bound on the cold corner's conversion when the hot corner's is at most a. */
-    private double coldAtMost(int j, double a) {
+    /**
+     * An upper bound on the cold corner's conversion when the hot corner's is at most a and the hot corner has
+     * been no hotter than a temperature at which k_j(T)/k_j(T − 2ΔT) is {@code rho} (the ratio falls with T).
+     */
+    private double coldAtMost(int j, double a, double rho) {
         if (a >= 1) {
             return 1;
         }
-        return rt[j].conversionAtMost(rt[j].upper(a) / rhoCold[j]);
+        return rt[j].conversionAtMost(rt[j].upper(a) / rho);
     }
 
-    /** A lower bound on the duration of the move (i, c) → (i+1, cp) started at t0 or later; −1 if impossible. */
-    private double moveTime(int i, int[] c, int[] cp, double t0, double fLo, double fHi, double clockFloor,
-                            double clockColdFloor, java.util.HashMap<Long, Double> memo,
-                            java.util.HashMap<Long, Double> memoPrev) {
-        double adm = admissible(i, c, cp, clockFloor, clockColdFloor, memo, memoPrev);
+    /** k_j(T)/k_j(T − 2ΔT), lowered against rounding (1 without spread). */
+    private double rhoColdAt(int j, double hotK) {
+        if (spread <= 0) {
+            return 1;
+        }
+        double t = Math.min(hotK, hotCeilingK);
+        return Math.max(1, comps[j].rateConstant(t) / comps[j].rateConstant(t - 2 * spread) * (1 - 1e-12));
+    }
+
+    /**
+     * A lower bound on the cold corner's reduced time when the hot corner's is at least v (before the 2-day horizon):
+     * the time the hot corner spends below T_s gains it at most HORIZON k_j(T_s); above T_s the cold corner gains at
+     * least 1/ρ_j(T_s) of what the hot one gains. The best T_s of a 2 K grid is taken.
+     */
+    private double coldLeast(int j, double v) {
+        if (!(v > 0) || spread <= 0) {
+            return spread <= 0 ? Math.max(v, 0) : 0;
+        }
+        double bestLo = 0;
+        for (double ts = floorK; ts <= hotCeilingK; ts += 2) {
+            double lo = (v - HORIZON_S * comps[j].rateConstant(ts) * (1 + 1e-12)) / rhoColdAbove(j, ts);
+            bestLo = Math.max(bestLo, lo * (1 - 1e-12));
+        }
+        return bestLo;
+    }
+
+    /** ρ_j at hot temperature T, raised against rounding. */
+    private double rhoColdAbove(int j, double hotK) {
+        return comps[j].rateConstant(hotK) / comps[j].rateConstant(hotK - 2 * spread) * (1 + 1e-12);
+    }
+
+    /** A lower bound on the cold corner's conversion when the hot corner's reduced time is at least v. */
+    private double coldAtLeast(int j, double v) {
+        return rt[j].conversionAtLeast(coldLeast(j, v));
+    }
+
+    /**
+     * A lower bound on the duration of the move (i, c) → (i+1, cp) started at t0 or later, given the highest
+     * admissible hot-corner temperature of its box; −1 if impossible.
+     */
+    private double moveTime(double adm, int[] c, int[] cp, double t0, double fLo, double fHi) {
         // Jensen's bound with the region's top temperature (the cap left out) ...
         double d = duration(c, cp, Math.min(adm, hotCeilingK), fLo, fHi);
         if (d < 0 || adm <= cap.wafer(t0) + spread) {
@@ -412,16 +493,14 @@ final class JointBound {
     /**
      * The highest hot-corner temperature at which the monotone limits hold with the least gas of the
      * move's box at the hot corner, and at the cold corner 2ΔT lower with the least gas its
-     * conversions can give (at most {@link #coldAtMost} of the box's top), memoised by the grid points
-     * that give the least gas.
+     * conversions can give (between {@link #coldAtLeast} of the box's bottom and {@link #coldAtMost} of its
+     * top), memoised by the cells the move leaves and enters.
      */
-    private double admissible(int i, int[] c, int[] cp, double clockFloor, double clockColdFloor,
+    private double admissible(int i, int[] c, int[] cp, double clockFloor, double clockColdFloor, double[] rhoNow,
                               java.util.HashMap<Long, Double> memo, java.util.HashMap<Long, Double> memoPrev) {
         long key = 0;
         for (int o = 0; o < others.length; o++) {
-            int j = others[o];
-            int e = cellF[o][c[o]] <= cellF[o][cp[o] + 1] ? c[o] : cp[o] + 1;
-            key = (key * cells[o].length + e) * cells[o].length + (cp[o] + 1);
+            key = (key * cells[o].length + c[o]) * cells[o].length + (cp[o] + 1);
         }
         Double m = memo.get(key);
         if (m != null) {
@@ -431,15 +510,11 @@ final class JointBound {
         double[] coldFloors = new double[k];
         floors[q] = clockFloor;
         coldFloors[q] = clockColdFloor;
-        long kk = key;
-        for (int o = others.length - 1; o >= 0; o--) {
+        for (int o = 0; o < others.length; o++) {
             int j = others[o];
-            int h = (int) (kk % cells[o].length);
-            kk /= cells[o].length;
-            int e = (int) (kk % cells[o].length);
-            kk /= cells[o].length;
-            floors[j] = cellF[o][e];
-            coldFloors[j] = rt[j].minF(rt[j].alpha0(), coldAtMost(j, cells[o][h]));
+            floors[j] = Math.min(cellF[o][c[o]], cellF[o][cp[o] + 1]);
+            coldFloors[j] = rt[j].minF(Math.min(cellColdLo[o][c[o]], coldAtMost(j, cells[o][cp[o] + 1], rhoNow[j])),
+                    coldAtMost(j, cells[o][cp[o] + 1], rhoNow[j]));
         }
         Double g = memoPrev == null ? null : memoPrev.get(key);
         double t = LowerBound.highestFeasible(temp -> margin(temp, floors, coldFloors), hotCeilingK, floorK,
