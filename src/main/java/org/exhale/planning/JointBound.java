@@ -41,6 +41,7 @@ final class JointBound {
     private final double spread;
     private final double hotCeilingK;
     private final double floorK;
+    private final double startK;
     private final int k;
     private final Component[] comps;
     private final ReducedTime[] rt;
@@ -71,6 +72,7 @@ final class JointBound {
         this.spread = spread;
         this.hotCeilingK = cap.capK() + spread;
         this.floorK = bake.recipeStartK() - 100;
+        this.startK = bake.recipeStartK();
         this.k = limits.size();
         this.comps = bake.polymer().components().toArray(new Component[0]);
         this.rt = new ReducedTime[k];
@@ -260,24 +262,36 @@ final class JointBound {
         tau[0] = 0;
         double[] next = new double[cellCount];
         java.util.HashMap<Long, Double> memoPrev = null;
-        // H: an upper bound on the hot corner's temperature over every move made so far by a recipe whose path runs
-        // through regular nodes only (docs/model.md, "Lower bounds", 2)
-        double hotSoFar = floorK;
+        // H: an upper bound on the hot corner's temperature so far, over every move of a recipe whose path has run
+        // through regular nodes only (docs/model.md, "Lower bounds", 2); at the start the wafer is at its setpoint
+        double hotSoFar = startK + spread;
+        double lastHottest = hotSoFar;
         best = Double.POSITIVE_INFINITY;
-        for (int i = 0; i + 1 < nl; i++) {
-            // stage 1: this level's moves with the cold corner relaxed by ρ at the hot ceiling, for their hottest temperature
-            java.util.HashMap<Long, Double> memo1 = new java.util.HashMap<>();
-            Level first = level(i, tau, null, hotCeilingK, memo1, memoPrev);
-            if (!first.any) {
+        boolean live = true;
+        for (int i = 0; i + 1 < nl && live; i++) {
+            // guess a bound G on the hot corner over this level's moves, evaluate them with the cold corner bounded through
+            // ρ(G + slack), and accept the level only if no move's admissible temperature exceeds G (else guess again)
+            double guessK = Math.max(hotSoFar, lastHottest) + GUESS_K;
+            java.util.HashMap<Long, Double> memo;
+            while (true) {
+                memo = new java.util.HashMap<>();
+                Arrays.fill(next, Double.POSITIVE_INFINITY);
+                Level lv = level(i, tau, next, guessK + SLACK_K, memo, memoPrev);
+                if (!lv.any) {
+                    live = false;
+                    break;
+                }
+                if (lv.hottest <= guessK || guessK >= hotCeilingK) {
+                    hotSoFar = Math.max(hotSoFar, lv.hottest);
+                    lastHottest = lv.hottest;
+                    break;
+                }
+                guessK = lv.hottest + GUESS_K;
+            }
+            if (!live) {
                 break;
             }
-            double h1 = Math.max(hotSoFar, first.hottest);
-            // stage 2: the same moves with ρ at that temperature: every recipe's hot corner has been no hotter so far
-            java.util.HashMap<Long, Double> memo2 = new java.util.HashMap<>();
-            Arrays.fill(next, Double.POSITIVE_INFINITY);
-            Level second = level(i, tau, next, h1, memo2, memo1);
-            hotSoFar = Math.max(hotSoFar, Math.min(h1, second.hottest));
-            memoPrev = memo2;
+            memoPrev = memo;
             double[] swap = tau;
             tau = next;
             next = swap;
@@ -289,6 +303,11 @@ final class JointBound {
         return new Outcome(best > HORIZON_S ? Double.POSITIVE_INFINITY : best, q, levels.length, cellCount, evaluations);
     }
 
+    /** How far above the last level's hottest move the next level's bound is first guessed [K]. */
+    private static final double GUESS_K = 1;
+    /** The cold corner is bounded with ρ this much above the guess, which the continuity argument needs [K]. */
+    private static final double SLACK_K = 0.5;
+
     /** The least τ of the nodes from which the target may be reached within a move (updated as levels are processed). */
     private double best;
 
@@ -297,9 +316,9 @@ final class JointBound {
     }
 
     /**
-     * The moves out of level i's live nodes. With {@code next} null nothing is recorded (stage 1); the cold corner's
-     * conversions are bounded with ρ at {@code hotMaxK}, an upper bound on the hot corner's temperature over every
-     * move up to and including this level's.
+     * The moves out of level i's live nodes, their arrivals recorded in {@code next}; the cold corner's conversions
+     * are bounded with ρ at {@code hotMaxK}, taken to bound the hot corner's temperature over every move up to and
+     * including this level's (the caller checks the claim).
      */
     private Level level(int i, double[] tau, double[] next, double hotMaxK, java.util.HashMap<Long, Double> memo,
                         java.util.HashMap<Long, Double> memoPrev) {
@@ -325,9 +344,7 @@ final class JointBound {
             // could the target be reached during a move out of this node? (the others can advance at most
             // ρ_j(hottest) ΔF_q in reduced time while the clock rises to the next level)
             if (capable(i, c, fHi)) {
-                if (next != null) {
-                    best = Math.min(best, t0);
-                }
+                best = Math.min(best, t0);
                 continue;
             }
             // landing cells c' ≥ c, dimension by dimension while the move can still be made
@@ -335,12 +352,10 @@ final class JointBound {
             while (true) {
                 double adm = admissible(i, c, cp, clockFloor, clockColdFloor, rhoNow, memo, memoPrev);
                 hottest = Math.max(hottest, Math.min(adm, hotCeilingK));
-                if (next != null) {
-                    double d = moveTime(adm, c, cp, t0, fLo, fHi);
-                    if (d >= 0) {
-                        int to = encode(cp);
-                        next[to] = Math.min(next[to], t0 + d);
-                    }
+                double d = moveTime(adm, c, cp, t0, fLo, fHi);
+                if (d >= 0) {
+                    int to = encode(cp);
+                    next[to] = Math.min(next[to], t0 + d);
                 }
                 // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
                 int o = 0;
@@ -501,23 +516,29 @@ final class JointBound {
      */
     private double admissible(int i, int[] c, int[] cp, double clockFloor, double clockColdFloor, double[] rhoNow,
                               java.util.HashMap<Long, Double> memo, java.util.HashMap<Long, Double> memoPrev) {
+        // the floors depend on the grid point that gives the hot corner's least f, on whether the cold corner's least f is
+        // at its lower end (then on the cell left) and on the cell entered
         long key = 0;
-        for (int o = 0; o < others.length; o++) {
-            key = (key * cells[o].length + c[o]) * cells[o].length + (cp[o] + 1);
-        }
-        Double m = memo.get(key);
-        if (m != null) {
-            return m;
-        }
         double[] floors = new double[k];
         double[] coldFloors = new double[k];
         floors[q] = clockFloor;
         coldFloors[q] = clockColdFloor;
         for (int o = 0; o < others.length; o++) {
             int j = others[o];
-            floors[j] = Math.min(cellF[o][c[o]], cellF[o][cp[o] + 1]);
-            coldFloors[j] = rt[j].minF(Math.min(cellColdLo[o][c[o]], coldAtMost(j, cells[o][cp[o] + 1], rhoNow[j])),
-                    coldAtMost(j, cells[o][cp[o] + 1], rhoNow[j]));
+            int n = cells[o].length;
+            int e = cellF[o][c[o]] <= cellF[o][cp[o] + 1] ? c[o] : cp[o] + 1;
+            floors[j] = cellF[o][e];
+            double hiCold = coldAtMost(j, cells[o][cp[o] + 1], rhoNow[j]);
+            double loCold = Math.min(cellColdLo[o][c[o]], hiCold);
+            double fLoCold = comps[j].model().f(loCold);
+            double fHiCold = comps[j].model().f(hiCold);
+            coldFloors[j] = Math.min(fLoCold, fHiCold);
+            int low = fLoCold < fHiCold ? c[o] : n;
+            key = ((key * n + e) * (n + 1) + low) * n + (cp[o] + 1);
+        }
+        Double m = memo.get(key);
+        if (m != null) {
+            return m;
         }
         Double g = memoPrev == null ? null : memoPrev.get(key);
         double t = LowerBound.highestFeasible(temp -> margin(temp, floors, coldFloors), hotCeilingK, floorK,
