@@ -66,7 +66,13 @@ final class JointBound {
     /** Per other component and grid point: a lower bound on the cold corner's conversion when the hot one is there. */
     private final double[][] cellColdLo;
 
-    JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta) {
+    /**
+     * @param clockDelta the largest relative change of the clock's f between levels
+     * @param cellDelta  the largest relative change of another component's f across a cell
+     * @param cellWidth  the widest cell of another component in reduced time
+     */
+    JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta,
+               double cellWidth) {
         this.limits = limits;
         this.cap = cap;
         this.spread = spread;
@@ -104,12 +110,12 @@ final class JointBound {
             }
         }
         this.others = other < 0 ? new int[0] : new int[]{other};
-        this.levels = grid(rt[q], top(q), clockDelta, false);
+        this.levels = grid(rt[q], top(q), clockDelta, Double.POSITIVE_INFINITY, false);
         this.cells = new double[others.length][];
         this.stride = new int[others.length];
         int count = 1;
         for (int o = 0; o < others.length; o++) {
-            cells[o] = grid(rt[others[o]], top(others[o]), cellDelta, true);
+            cells[o] = grid(rt[others[o]], top(others[o]), cellDelta, cellWidth, true);
             stride[o] = count;
             count *= cells[o].length - 1;
         }
@@ -215,10 +221,11 @@ final class JointBound {
     }
 
     /**
-     * Grid points from α0 to top over which f varies by at most a factor 1 + delta (and α by at most
-     * 0.05) between neighbours; with {@code toOne}, 1 closes the last cell.
+     * Grid points from α0 to top over which f varies by at most a factor 1 + delta, α by at most 0.05 and
+     * the reduced time by at most {@code width} (as far as the 0.002 logit sub-steps resolve it) between neighbours;
+     * with {@code toOne}, 1 closes the last cell.
      */
-    static double[] grid(ReducedTime r, double top, double delta, boolean toOne) {
+    static double[] grid(ReducedTime r, double top, double delta, double width, boolean toOne) {
         double a0 = r.alpha0();
         double s0 = ReducedTime.logit(Math.max(a0, 1e-9));
         double s1 = ReducedTime.logit(top);
@@ -234,7 +241,7 @@ final class JointBound {
             }
             double fmax = r.maxF(x, c);
             double fmin = r.minF(x, c);
-            if ((fmax > (1 + delta) * fmin || c - x > 0.05) && prev > x) {
+            if ((fmax > (1 + delta) * fmin || c - x > 0.05 || r.upper(c) - r.lower(x) > width) && prev > x) {
                 if (n == out.length) {
                     out = Arrays.copyOf(out, 2 * n);
                 }

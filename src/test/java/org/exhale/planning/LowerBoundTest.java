@@ -365,10 +365,10 @@ class LowerBoundTest {
         System.out.printf("qs-two-pressure: greedy schedule %.2f min, bound %.2f min (%s), ratio %.4f%n",
                 greedy.timeToTargetS() / 60, bound.boundS() / 60, best(bound), ratio);
         assertTrue(ratio >= 1 - 1e-9, "a verified schedule beats the bound, ratio " + ratio);
-        // tolerance 16 % (empirical; docs/model.md, "Lower bounds", says where the rest is lost: the joint programme's
-        // cells, and the cold corner known only through the hottest move so far); measured 1.139 (before this bound
-        // was tightened: 1.199)
-        assertTrue(ratio < 1.16, "bound loose, ratio " + ratio);
+        // tolerance 10 % (empirical; docs/model.md, "Lower bounds", says where the rest is lost: the joint programme's
+        // cells, the cold corner known only through the hottest move so far, the ramp rate); measured 1.079 (before this
+        // bound was tightened: 1.199)
+        assertTrue(ratio < 1.10, "bound loose, ratio " + ratio);
     }
 
     private static String best(LowerBound.Result r) {
