@@ -41,6 +41,8 @@ final class JointBound {
     private final double spread;
     private final double hotCeilingK;
     private final double floorK;
+    /** Parts of each clock level, each with its own floors (the level's own steps are coarse to keep the cells few). */
+    private final int parts;
     private final double startK;
     private final int k;
     private final Component[] comps;
@@ -70,14 +72,16 @@ final class JointBound {
      * @param clockDelta the largest relative change of the clock's f between levels
      * @param cellDelta  the largest relative change of another component's f across a cell
      * @param cellWidth  the widest cell of another component in reduced time
+     * @param parts      parts of each clock level (equal steps in α), each with its own floors and admissible temperature
      */
     JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta,
-               double cellWidth) {
+               double cellWidth, int parts) {
         this.limits = limits;
         this.cap = cap;
         this.spread = spread;
         this.hotCeilingK = cap.capK() + spread;
         this.floorK = bake.recipeStartK() - 100;
+        this.parts = parts;
         this.startK = bake.recipeStartK();
         this.k = limits.size();
         this.comps = bake.polymer().components().toArray(new Component[0]);
@@ -337,8 +341,19 @@ final class JointBound {
         }
         double fLo = Math.max(0, rt[q].lower(levels[i + 1]) - rt[q].upper(levels[i]));
         double fHi = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
-        double clockFloor = rt[q].minF(levels[i], levels[i + 1]);
-        double clockColdFloor = rt[q].minF(coldAtLeast(q, rt[q].lower(levels[i])), coldAtMost(q, levels[i + 1], rhoNow[q]));
+        // the level split into equal steps in α: while the clock crosses part s, its conversion lies in
+        // [b_s, b_{s+1}] and the others' in their box, so the part has its own floors, admissible temperature and least duration
+        double[] clockFloor = new double[parts];
+        double[] clockColdFloor = new double[parts];
+        double[] partF = new double[parts];
+        for (int s = 0; s < parts; s++) {
+            double b0 = s == 0 ? levels[i] : levels[i] + (levels[i + 1] - levels[i]) * s / parts;
+            double b1 = s == parts - 1 ? levels[i + 1] : levels[i] + (levels[i + 1] - levels[i]) * (s + 1) / parts;
+            clockFloor[s] = rt[q].minF(b0, b1);
+            clockColdFloor[s] = rt[q].minF(coldAtLeast(q, rt[q].lower(b0)), coldAtMost(q, b1, rhoNow[q]));
+            partF[s] = Math.max(0, rt[q].lower(b1) - rt[q].upper(b0));
+        }
+        double[] partAdm = new double[parts];
         boolean any = false;
         double hottest = floorK;
         for (int flat = 0; flat < cellCount; flat++) {
@@ -357,9 +372,23 @@ final class JointBound {
             // landing cells c' ≥ c, dimension by dimension while the move can still be made
             System.arraycopy(c, 0, cp, 0, c.length);
             while (true) {
-                double adm = admissible(i, c, cp, clockFloor, clockColdFloor, rhoNow, memo, memoPrev);
+                // the move is nowhere hotter than its hottest part allows
+                double adm = floorK;
+                for (int s = 0; s < parts; s++) {
+                    partAdm[s] = admissible(s, c, cp, clockFloor[s], clockColdFloor[s], rhoNow, memo, memoPrev);
+                    adm = Math.max(adm, partAdm[s]);
+                }
                 hottest = Math.max(hottest, Math.min(adm, hotCeilingK));
                 double d = moveTime(adm, c, cp, t0, fLo, fHi);
+                if (d >= 0) {
+                    // each part takes at least its clock reduced time at the part's own admissible temperature
+                    double byParts = 0;
+                    for (int s = 0; s < parts; s++) {
+                        double kq = comps[q].rateConstant(Math.min(partAdm[s], hotCeilingK));
+                        byParts += kq > 0 ? partF[s] / kq : (partF[s] > 0 ? Double.POSITIVE_INFINITY : 0);
+                    }
+                    d = Math.max(d, byParts * (1 - 1e-12));
+                }
                 if (d >= 0) {
                     int to = encode(cp);
                     next[to] = Math.min(next[to], t0 + d);
@@ -521,7 +550,7 @@ final class JointBound {
      * conversions can give (between {@link #coldAtLeast} of the box's bottom and {@link #coldAtMost} of its
      * top), memoised by the cells the move leaves and enters.
      */
-    private double admissible(int i, int[] c, int[] cp, double clockFloor, double clockColdFloor, double[] rhoNow,
+    private double admissible(int part, int[] c, int[] cp, double clockFloor, double clockColdFloor, double[] rhoNow,
                               java.util.HashMap<Long, Double> memo, java.util.HashMap<Long, Double> memoPrev) {
         // the floors depend on the grid point that gives the hot corner's least f, on whether the cold corner's least f is
         // at its lower end (then on the cell left) and on the cell entered
@@ -543,6 +572,7 @@ final class JointBound {
             int low = fLoCold < fHiCold ? c[o] : n;
             key = ((key * n + e) * (n + 1) + low) * n + (cp[o] + 1);
         }
+        key = key * parts + part;
         Double m = memo.get(key);
         if (m != null) {
             return m;

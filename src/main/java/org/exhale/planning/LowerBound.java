@@ -60,6 +60,8 @@ public final class LowerBound {
     static final double CLOCK_DELTA_ONE = 0.005;
     static final double CELL_DELTA = 0.03;
     static final double CELL_WIDTH = 0.015;
+    /** Parts of each clock level with several components (each with its own floors). */
+    static final int CLOCK_PARTS = 2;
     /** Shortest time step of the envelope bound [s] (measured: 4× finer moves the bench bounds by under 0.02 %). */
     static final double ENVELOPE_STEP_S = 0.25;
 
@@ -95,7 +97,8 @@ public final class LowerBound {
                     "gas made <= most the cavity can store + most the cap can vent at the admissible pressure; any gas regime"));
         }
         double clockDelta = bake.polymer().size() == 1 ? CLOCK_DELTA_ONE : CLOCK_DELTA;
-        JointBound.Outcome j = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, CELL_WIDTH).compute();
+        JointBound.Outcome j = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, CELL_WIDTH,
+                bake.polymer().size() == 1 ? 1 : CLOCK_PARTS).compute();
         list.add(new Estimate("joint", j.boundS(), quasiSteady, quasiSteady
                 ? "all components and both corners jointly, every monotone instantaneous limit, quasi-steady gas"
                 : "as for quasi-steady gas; the gas here is stored (not quasi-steady), so this is an estimate"));
