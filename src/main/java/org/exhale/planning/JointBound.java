@@ -277,12 +277,14 @@ final class JointBound {
         // through regular nodes only (docs/model.md, "Lower bounds", 2); at the start the wafer is at its setpoint
         double hotSoFar = startK + spread;
         double lastHottest = hotSoFar;
+        double lastRise = 0;
         best = Double.POSITIVE_INFINITY;
         boolean live = true;
         for (int i = 0; i + 1 < nl && live; i++) {
             // guess a bound G on the hot corner over this level's moves, evaluate them with the cold corner bounded through
             // ρ(G + slack), and accept the level only if no move's admissible temperature exceeds G (else guess again)
-            double guessK = Math.max(hotSoFar, lastHottest) + GUESS_K;
+            // (the guess follows the last level's rise, so that a level is seldom evaluated twice)
+            double guessK = Math.max(hotSoFar, lastHottest) + Math.max(GUESS_K, 1.5 * lastRise);
             java.util.HashMap<Long, Double> memo;
             while (true) {
                 memo = new java.util.HashMap<>();
@@ -293,11 +295,12 @@ final class JointBound {
                     break;
                 }
                 if (lv.hottest <= guessK || guessK >= hotCeilingK) {
+                    lastRise = Math.max(0, lv.hottest - lastHottest);
                     hotSoFar = Math.max(hotSoFar, lv.hottest);
                     lastHottest = lv.hottest;
                     break;
                 }
-                guessK = lv.hottest + GUESS_K;
+                guessK = lv.hottest + Math.max(GUESS_K, lv.hottest - guessK);
             }
             if (!live) {
                 break;
