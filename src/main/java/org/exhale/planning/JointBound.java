@@ -127,11 +127,25 @@ final class JointBound {
         this.gen = new double[k];
         this.genCold = new double[k];
         this.capped = new CappedClock(comps[q], cap, spread);
+        this.levelHot = new double[levels.length];
+        this.levelSpan = new double[levels.length];
+        for (int l = 0; l + 1 < levels.length; l++) {
+            levelSpan[l] = rt[q].upper(levels[l + 1]) - rt[q].lower(levels[l]);
+        }
+        this.fillWeight = new double[others.length][];
+        this.fillCap = new double[others.length][];
+        this.hiColdCache = new double[others.length][];
+        this.hiColdF = new double[others.length][];
+        for (int o = 0; o < others.length; o++) {
+            hiColdCache[o] = new double[cells[o].length];
+            hiColdF[o] = new double[cells[o].length];
+        }
         cellLo = new double[others.length][];
         cellHi = new double[others.length][];
         cellF = new double[others.length][];
         rhoTop = new double[others.length];
         cellColdLo = new double[others.length][];
+        cellColdLoF = new double[others.length][];
         for (int o = 0; o < others.length; o++) {
             int j = others[o];
             int n = cells[o].length;
@@ -145,8 +159,10 @@ final class JointBound {
             }
             rhoTop[o] = rho(j, hotCeilingK);
             cellColdLo[o] = new double[n];
+            cellColdLoF[o] = new double[n];
             for (int p = 0; p < n; p++) {
                 cellColdLo[o][p] = coldAtLeast(j, cellLo[o][p]);
+                cellColdLoF[o][p] = comps[j].model().f(cellColdLo[o][p]);
             }
         }
     }
@@ -298,6 +314,7 @@ final class JointBound {
                     lastRise = Math.max(0, lv.hottest - lastHottest);
                     hotSoFar = Math.max(hotSoFar, lv.hottest);
                     lastHottest = lv.hottest;
+                    levelHot[i] = Math.min(lv.hottest, hotCeilingK);
                     break;
                 }
                 guessK = lv.hottest + Math.max(GUESS_K, lv.hottest - guessK);
@@ -342,6 +359,14 @@ final class JointBound {
         for (int j = 0; j < k; j++) {
             rhoNow[j] = rhoColdAt(j, hotMaxK);
         }
+        currentHotMaxK = hotMaxK;
+        coldTables(i, rhoNow);
+        for (int o = 0; o < others.length; o++) {
+            for (int p = 0; p < cells[o].length; p++) {
+                hiColdCache[o][p] = otherColdAtMost(o, cells[o][p]);
+                hiColdF[o][p] = comps[others[o]].model().f(hiColdCache[o][p]);
+            }
+        }
         double fLo = Math.max(0, rt[q].lower(levels[i + 1]) - rt[q].upper(levels[i]));
         double fHi = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
         // the level split into equal steps in α: while the clock crosses part s, its conversion lies in
@@ -353,7 +378,7 @@ final class JointBound {
             double b0 = s == 0 ? levels[i] : levels[i] + (levels[i + 1] - levels[i]) * s / parts;
             double b1 = s == parts - 1 ? levels[i + 1] : levels[i] + (levels[i + 1] - levels[i]) * (s + 1) / parts;
             clockFloor[s] = rt[q].minF(b0, b1);
-            clockColdFloor[s] = rt[q].minF(coldAtLeast(q, rt[q].lower(b0)), coldAtMost(q, b1, rhoNow[q]));
+            clockColdFloor[s] = rt[q].minF(coldAtLeast(q, rt[q].lower(b0)), clockColdAtMost(i, b1, rhoNow[q]));
             partF[s] = Math.max(0, rt[q].lower(b1) - rt[q].upper(b0));
         }
         double[] partAdm = new double[parts];
@@ -469,6 +494,93 @@ final class JointBound {
         return rt[j].conversionAtMost(rt[j].upper(a) / rho);
     }
 
+    /** Per level done: the hottest its moves could be (min with the hot ceiling), the clock's reduced time it spans (upper). */
+    private final double[] levelHot;
+    private final double[] levelSpan;
+    /** The clock's cold reduced time gained over the levels before the current one (upper bound). */
+    private double clockColdBefore;
+    /** Per other component: the current level's weights 1/ρ_j and caps of hot reduced time, by weight descending. */
+    private double[][] fillWeight;
+    private double[][] fillCap;
+
+    /**
+     * The per-level accounts of the cold corner for level i, the current level's hot corner taken to be no hotter than
+     * where ρ_j is rhoNow[j] (docs/model.md, "Lower bounds", 2).
+     */
+    private void coldTables(int i, double[] rhoNow) {
+        double sum = 0;
+        for (int l = 0; l < i; l++) {
+            sum += levelSpan[l] / rhoColdAt(q, levelHot[l]);
+        }
+        clockColdBefore = sum * (1 + 1e-12);
+        double spanNow = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            double[][] rows = new double[i + 1][];
+            for (int l = 0; l < i; l++) {
+                rows[l] = new double[]{1 / rhoColdAt(j, levelHot[l]), rho(j, levelHot[l]) * levelSpan[l] * (1 + 1e-12)};
+            }
+            double hotNow = Math.min(hotCeilingK, currentHotMaxK);
+            rows[i] = new double[]{1 / rhoNow[j], rho(j, hotNow) * spanNow * (1 + 1e-12)};
+            Arrays.sort(rows, (x, y) -> Double.compare(y[0], x[0]));
+            fillWeight[o] = new double[i + 1];
+            fillCap[o] = new double[i + 1];
+            for (int l = 0; l <= i; l++) {
+                fillWeight[o][l] = rows[l][0];
+                fillCap[o][l] = rows[l][1];
+            }
+        }
+    }
+
+    /** Per other component and grid point: its cold conversion bound in the current level's evaluation, and f there. */
+    private double[][] hiColdCache;
+    private double[][] hiColdF;
+    /** Per other component and grid point: f at the cold corner's lower conversion bound. */
+    private double[][] cellColdLoF;
+
+    /**
+     * f of other component o at the lower end of its cold conversions on a move from cell c into cell cp (the lower
+     * bound from c's bottom, clipped to the upper bound from cp's top).
+     */
+    private double coldLowF(int o, int c, int cp) {
+        return cellColdLo[o][c] <= hiColdCache[o][cp + 1] ? cellColdLoF[o][c] : hiColdF[o][cp + 1];
+    }
+    /** The bound taken for the current level's hot corner [K]. */
+    private double currentHotMaxK;
+
+    /** An upper bound on the clock's cold conversion while its hot conversion is at most b during level i. */
+    private double clockColdAtMost(int i, double b, double rhoNowQ) {
+        if (b >= 1) {
+            return 1;
+        }
+        double v = clockColdBefore + Math.max(0, rt[q].upper(b) - rt[q].lower(levels[i])) / rhoNowQ;
+        return rt[q].conversionAtMost(v * (1 + 1e-12));
+    }
+
+    /**
+     * An upper bound on other component o's cold conversion while its hot conversion is at most a: its hot reduced time
+     * (at most F(a)) was gained level by level, at most ρ_jq(hottest) times the clock's span on each, and each part gave
+     * the cold corner at most 1/ρ_j(hottest) of itself; the largest total fills the levels of largest weight first.
+     */
+    private double otherColdAtMost(int o, double a) {
+        if (a >= 1) {
+            return 1;
+        }
+        int j = others[o];
+        double x = rt[j].upper(a);
+        double v = 0;
+        double[] wts = fillWeight[o];
+        double[] caps = fillCap[o];
+        for (int l = 0; l < wts.length && x > 0; l++) {
+            double take = Math.min(x, caps[l]);
+            v += take * wts[l];
+            x -= take;
+        }
+        // beyond every cap (no recipe gets there): the largest weight
+        v += x * wts[0];
+        return rt[j].conversionAtMost(v * (1 + 1e-12));
+    }
+
     /** k_j(T)/k_j(T − 2ΔT), lowered against rounding (1 without spread). */
     private double rhoColdAt(int j, double hotK) {
         if (spread <= 0) {
@@ -558,27 +670,27 @@ final class JointBound {
         // the floors depend on the grid point that gives the hot corner's least f, on whether the cold corner's least f is
         // at its lower end (then on the cell left) and on the cell entered
         long key = 0;
+        for (int o = 0; o < others.length; o++) {
+            int n = cells[o].length;
+            int e = cellF[o][c[o]] <= cellF[o][cp[o] + 1] ? c[o] : cp[o] + 1;
+            double fLoCold = coldLowF(o, c[o], cp[o]);
+            int low = fLoCold < hiColdF[o][cp[o] + 1] ? c[o] : n;
+            key = ((key * n + e) * (n + 1) + low) * n + (cp[o] + 1);
+        }
+        // spread the bits (a bijection: odd multiplier) so that the hash map's bins stay short
+        key = (key * parts + part) * 0x9E3779B97F4A7C15L;
+        Double m = memo.get(key);
+        if (m != null) {
+            return m;
+        }
         double[] floors = new double[k];
         double[] coldFloors = new double[k];
         floors[q] = clockFloor;
         coldFloors[q] = clockColdFloor;
         for (int o = 0; o < others.length; o++) {
             int j = others[o];
-            int n = cells[o].length;
-            int e = cellF[o][c[o]] <= cellF[o][cp[o] + 1] ? c[o] : cp[o] + 1;
-            floors[j] = cellF[o][e];
-            double hiCold = coldAtMost(j, cells[o][cp[o] + 1], rhoNow[j]);
-            double loCold = Math.min(cellColdLo[o][c[o]], hiCold);
-            double fLoCold = comps[j].model().f(loCold);
-            double fHiCold = comps[j].model().f(hiCold);
-            coldFloors[j] = Math.min(fLoCold, fHiCold);
-            int low = fLoCold < fHiCold ? c[o] : n;
-            key = ((key * n + e) * (n + 1) + low) * n + (cp[o] + 1);
-        }
-        key = key * parts + part;
-        Double m = memo.get(key);
-        if (m != null) {
-            return m;
+            floors[j] = Math.min(cellF[o][c[o]], cellF[o][cp[o] + 1]);
+            coldFloors[j] = Math.min(coldLowF(o, c[o], cp[o]), hiColdF[o][cp[o] + 1]);
         }
         Double g = memoPrev == null ? null : memoPrev.get(key);
         double t = LowerBound.highestFeasible(temp -> margin(temp, floors, coldFloors), hotCeilingK, floorK,
