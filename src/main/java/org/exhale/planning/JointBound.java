@@ -19,9 +19,10 @@ import org.exhale.simulation.InstantLimits;
  * [a_i, a_{i+1}] × [lo(c), hi(c')]; on it no admissible temperature exceeds T_top, the highest at
  * which the monotone limits hold with the least gas any state of the box generates (at both corners,
  * the cold corner 2ΔT lower with its least gas), and the temperature cap. The cold corner's
- * conversions are bounded above through the hottest move so far (each level is done twice: first with
- * k(T)/k(T − 2ΔT) at the ceiling, then at the hottest temperature the first stage allowed) and below
- * through that ratio at a split temperature, which gives gas where f rises from the seed. In reduced time
+ * conversions are bounded above level by level through k(T)/k(T − 2ΔT) at each level's hottest move
+ * (the current level's bound guessed, then checked), and below through that ratio at a split
+ * temperature, which gives gas where f rises from the seed. Each level is cut into parts with their
+ * own floors. In reduced time
  * F_j = ∫dα/f_j the move is exact: ΔF_j = ∫ρ_j(T) dF_q with ρ_j = k_j/k_q, and Δt = ∫dF_q/k_q(T).
  * By Jensen's inequality (1/k_q is a convex function of ρ_j along the Arrhenius curve) the move
  * takes at least ΔF_q/k_q(T*), T* the highest temperature ≤ T_top consistent with the others

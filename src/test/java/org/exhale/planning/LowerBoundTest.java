@@ -366,7 +366,7 @@ class LowerBoundTest {
                 greedy.timeToTargetS() / 60, bound.boundS() / 60, best(bound), ratio);
         assertTrue(ratio >= 1 - 1e-9, "a verified schedule beats the bound, ratio " + ratio);
         // tolerance 10 % (empirical; docs/model.md, "Lower bounds", says where the rest is lost: the joint programme's
-        // cells, the cold corner known only through the hottest move so far, the ramp rate); measured 1.068 (before this
+        // cells, the cold corner known only through per-level temperature bounds, the ramp rate); measured 1.058 (before this
         // bound was tightened: 1.199)
         assertTrue(ratio < 1.10, "bound loose, ratio " + ratio);
     }
