@@ -53,13 +53,13 @@ public final class LowerBound {
      * Grid resolution of the joint bound: relative change of f between clock levels (several components; one
      * component has no cells to cross, so a finer clock costs milliseconds) and across a cell, and the widest cell in
      * reduced time (a cell lets the other component be re-placed anywhere in it at every level, so it must be narrow
-     * against that component's motion per level; measured on qs-two-pressure: no cap 81.6 min, 0.015 86.1, 0.01 86.6
-     * in three times the time).
+     * against that component's motion per level; measured on qs-two-pressure: 0.015 87.8 min, 0.01 88.4, 0.0075 88.9,
+     * the joint bound of the dense demo taking 0.45 / 0.67 / 0.98 s).
      */
     static final double CLOCK_DELTA = 0.1;
     static final double CLOCK_DELTA_ONE = 0.005;
     static final double CELL_DELTA = 0.03;
-    static final double CELL_WIDTH = 0.015;
+    static final double CELL_WIDTH = 0.01;
     /** Parts of each clock level with several components (each with its own floors). */
     static final int CLOCK_PARTS = 2;
     /** Shortest time step of the envelope bound [s] (measured: 4× finer moves the bench bounds by under 0.02 %). */
