@@ -18,7 +18,11 @@ import org.exhale.simulation.InstantLimits;
  * cell c. A move from (i, c) to (i+1, c') keeps every conversion inside the box
  * [a_i, a_{i+1}] × [lo(c), hi(c')]; on it no admissible temperature exceeds T_top, the highest at
  * which the monotone limits hold with the least gas any state of the box generates (at both corners,
- * the cold corner 2ΔT lower with its least gas), and the temperature cap. In reduced time
+ * the cold corner 2ΔT lower with its least gas), and the temperature cap. The cold corner's
+ * conversions are bounded above level by level through k(T)/k(T − 2ΔT) at each level's hottest move
+ * (the current level's bound guessed, then checked), and below through that ratio at a split
+ * temperature, which gives gas where f rises from the seed. Each level is cut into parts with their
+ * own floors. In reduced time
  * F_j = ∫dα/f_j the move is exact: ΔF_j = ∫ρ_j(T) dF_q with ρ_j = k_j/k_q, and Δt = ∫dF_q/k_q(T).
  * By Jensen's inequality (1/k_q is a convex function of ρ_j along the Arrhenius curve) the move
  * takes at least ΔF_q/k_q(T*), T* the highest temperature ≤ T_top consistent with the others
@@ -38,6 +42,9 @@ final class JointBound {
     private final double spread;
     private final double hotCeilingK;
     private final double floorK;
+    /** Parts of each clock level, each with its own floors (the level's own steps are coarse to keep the cells few). */
+    private final int parts;
+    private final double startK;
     private final int k;
     private final Component[] comps;
     private final ReducedTime[] rt;
@@ -59,13 +66,24 @@ final class JointBound {
     private final double[][] cellHi;
     private final double[][] cellF;
     private final double[] rhoTop;
+    /** Per other component and grid point: a lower bound on the cold corner's conversion when the hot one is there. */
+    private final double[][] cellColdLo;
 
-    JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta) {
+    /**
+     * @param clockDelta the largest relative change of the clock's f between levels
+     * @param cellDelta  the largest relative change of another component's f across a cell
+     * @param cellWidth  the widest cell of another component in reduced time
+     * @param parts      parts of each clock level (equal steps in α), each with its own floors and admissible temperature
+     */
+    JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta,
+               double cellWidth, int parts) {
         this.limits = limits;
         this.cap = cap;
         this.spread = spread;
         this.hotCeilingK = cap.capK() + spread;
         this.floorK = bake.recipeStartK() - 100;
+        this.parts = parts;
+        this.startK = bake.recipeStartK();
         this.k = limits.size();
         this.comps = bake.polymer().components().toArray(new Component[0]);
         this.rt = new ReducedTime[k];
@@ -97,12 +115,12 @@ final class JointBound {
             }
         }
         this.others = other < 0 ? new int[0] : new int[]{other};
-        this.levels = grid(rt[q], top(q), clockDelta, false);
+        this.levels = grid(rt[q], top(q), clockDelta, Double.POSITIVE_INFINITY, false);
         this.cells = new double[others.length][];
         this.stride = new int[others.length];
         int count = 1;
         for (int o = 0; o < others.length; o++) {
-            cells[o] = grid(rt[others[o]], top(others[o]), cellDelta, true);
+            cells[o] = grid(rt[others[o]], top(others[o]), cellDelta, cellWidth, true);
             stride[o] = count;
             count *= cells[o].length - 1;
         }
@@ -110,10 +128,25 @@ final class JointBound {
         this.gen = new double[k];
         this.genCold = new double[k];
         this.capped = new CappedClock(comps[q], cap, spread);
+        this.levelHot = new double[levels.length];
+        this.levelSpan = new double[levels.length];
+        for (int l = 0; l + 1 < levels.length; l++) {
+            levelSpan[l] = rt[q].upper(levels[l + 1]) - rt[q].lower(levels[l]);
+        }
+        this.fillWeight = new double[others.length][];
+        this.fillCap = new double[others.length][];
+        this.hiColdCache = new double[others.length][];
+        this.hiColdF = new double[others.length][];
+        for (int o = 0; o < others.length; o++) {
+            hiColdCache[o] = new double[cells[o].length];
+            hiColdF[o] = new double[cells[o].length];
+        }
         cellLo = new double[others.length][];
         cellHi = new double[others.length][];
         cellF = new double[others.length][];
         rhoTop = new double[others.length];
+        cellColdLo = new double[others.length][];
+        cellColdLoF = new double[others.length][];
         for (int o = 0; o < others.length; o++) {
             int j = others[o];
             int n = cells[o].length;
@@ -126,6 +159,12 @@ final class JointBound {
                 cellF[o][p] = comps[j].model().f(cells[o][p]);
             }
             rhoTop[o] = rho(j, hotCeilingK);
+            cellColdLo[o] = new double[n];
+            cellColdLoF[o] = new double[n];
+            for (int p = 0; p < n; p++) {
+                cellColdLo[o][p] = coldAtLeast(j, cellLo[o][p]);
+                cellColdLoF[o][p] = comps[j].model().f(cellColdLo[o][p]);
+            }
         }
     }
 
@@ -203,10 +242,11 @@ final class JointBound {
     }
 
     /**
-     * Grid points from α0 to top over which f varies by at most a factor 1 + delta (and α by at most
-     * 0.05) between neighbours; with {@code toOne}, 1 closes the last cell.
+     * Grid points from α0 to top over which f varies by at most a factor 1 + delta, α by at most 0.05 and
+     * the reduced time by at most {@code width} (as far as the 0.002 logit sub-steps resolve it) between neighbours;
+     * with {@code toOne}, 1 closes the last cell.
      */
-    static double[] grid(ReducedTime r, double top, double delta, boolean toOne) {
+    static double[] grid(ReducedTime r, double top, double delta, double width, boolean toOne) {
         double a0 = r.alpha0();
         double s0 = ReducedTime.logit(Math.max(a0, 1e-9));
         double s1 = ReducedTime.logit(top);
@@ -222,7 +262,7 @@ final class JointBound {
             }
             double fmax = r.maxF(x, c);
             double fmin = r.minF(x, c);
-            if ((fmax > (1 + delta) * fmin || c - x > 0.05) && prev > x) {
+            if ((fmax > (1 + delta) * fmin || c - x > 0.05 || r.upper(c) - r.lower(x) > width) && prev > x) {
                 if (n == out.length) {
                     out = Arrays.copyOf(out, 2 * n);
                 }
@@ -245,62 +285,42 @@ final class JointBound {
 
     Outcome compute() {
         int nl = levels.length;
-        double best = Double.POSITIVE_INFINITY;
         double[] tau = new double[cellCount];
         Arrays.fill(tau, Double.POSITIVE_INFINITY);
         tau[0] = 0;
         double[] next = new double[cellCount];
         java.util.HashMap<Long, Double> memoPrev = null;
-        int[] c = new int[others.length];
-        int[] cp = new int[others.length];
-        double hotMax = hotCeilingK;
-        for (int i = 0; i + 1 < nl; i++) {
-            Arrays.fill(next, Double.POSITIVE_INFINITY);
-            java.util.HashMap<Long, Double> memo = new java.util.HashMap<>();
-            double fLo = rt[q].lower(levels[i + 1]) - rt[q].upper(levels[i]);
-            double fHi = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
-            fLo = Math.max(fLo, 0);
-            double clockFloor = rt[q].minF(levels[i], levels[i + 1]);
-            double clockColdFloor = rt[q].minF(rt[q].alpha0(), coldAtMost(q, levels[i + 1]));
-            boolean any = false;
-            for (int flat = 0; flat < cellCount; flat++) {
-                double t0 = tau[flat];
-                if (!(t0 < best) || t0 > HORIZON_S) {
-                    continue;
+        // H: an upper bound on the hot corner's temperature so far, over every move of a recipe whose path has run
+        // through regular nodes only (docs/model.md, "Lower bounds", 2); at the start the wafer is at its setpoint
+        double hotSoFar = startK + spread;
+        double lastHottest = hotSoFar;
+        double lastRise = 0;
+        best = Double.POSITIVE_INFINITY;
+        boolean live = true;
+        for (int i = 0; i + 1 < nl && live; i++) {
+            // guess a bound G on the hot corner over this level's moves, evaluate them with the cold corner bounded through
+            // ρ(G + slack), and accept the level only if no move's admissible temperature exceeds G (else guess again)
+            // (the guess follows the last level's rise, so that a level is seldom evaluated twice)
+            double guessK = Math.max(hotSoFar, lastHottest) + Math.max(GUESS_K, 1.5 * lastRise);
+            java.util.HashMap<Long, Double> memo;
+            while (true) {
+                memo = new java.util.HashMap<>();
+                Arrays.fill(next, Double.POSITIVE_INFINITY);
+                Level lv = level(i, tau, next, guessK + SLACK_K, memo, memoPrev);
+                if (!lv.any) {
+                    live = false;
+                    break;
                 }
-                any = true;
-                decode(flat, c);
-                // could the target be reached during a move out of this node? (the others can advance at most
-                // ρ_j(hottest) ΔF_q in reduced time while the clock rises to the next level)
-                if (capable(i, c, fHi, hotMax)) {
-                    best = Math.min(best, t0);
-                    continue;
+                if (lv.hottest <= guessK || guessK >= hotCeilingK) {
+                    lastRise = Math.max(0, lv.hottest - lastHottest);
+                    hotSoFar = Math.max(hotSoFar, lv.hottest);
+                    lastHottest = lv.hottest;
+                    levelHot[i] = Math.min(lv.hottest, hotCeilingK);
+                    break;
                 }
-                // landing cells c' ≥ c, dimension by dimension while the move can still be made
-                System.arraycopy(c, 0, cp, 0, c.length);
-                while (true) {
-                    double d = moveTime(i, c, cp, t0, fLo, fHi, clockFloor, clockColdFloor, memo, memoPrev);
-                    boolean feasible = d >= 0;
-                    if (feasible) {
-                        int to = encode(cp);
-                        next[to] = Math.min(next[to], t0 + d);
-                    }
-                    // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
-                    int o = 0;
-                    while (o < others.length) {
-                        if (cp[o] + 1 < cells[o].length - 1 && reachable(i, o, c[o], cp[o] + 1, fHi)) {
-                            cp[o]++;
-                            break;
-                        }
-                        cp[o] = c[o];
-                        o++;
-                    }
-                    if (o == others.length) {
-                        break;
-                    }
-                }
+                guessK = lv.hottest + Math.max(GUESS_K, lv.hottest - guessK);
             }
-            if (!any) {
+            if (!live) {
                 break;
             }
             memoPrev = memo;
@@ -313,6 +333,111 @@ final class JointBound {
             best = Math.min(best, tau[flat]);
         }
         return new Outcome(best > HORIZON_S ? Double.POSITIVE_INFINITY : best, q, levels.length, cellCount, evaluations);
+    }
+
+    /** How far above the last level's hottest move the next level's bound is first guessed [K]. */
+    private static final double GUESS_K = 1;
+    /** The cold corner is bounded with ρ this much above the guess, which the continuity argument needs [K]. */
+    private static final double SLACK_K = 0.5;
+
+    /** The least τ of the nodes from which the target may be reached within a move (updated as levels are processed). */
+    private double best;
+
+    /** What one level's moves gave: whether any node was live, and the hottest admissible temperature of its moves. */
+    private record Level(boolean any, double hottest) {
+    }
+
+    /**
+     * The moves out of level i's live nodes, their arrivals recorded in {@code next}; the cold corner's conversions
+     * are bounded with ρ at {@code hotMaxK}, taken to bound the hot corner's temperature over every move up to and
+     * including this level's (the caller checks the claim).
+     */
+    private Level level(int i, double[] tau, double[] next, double hotMaxK, java.util.HashMap<Long, Double> memo,
+                        java.util.HashMap<Long, Double> memoPrev) {
+        int[] c = new int[others.length];
+        int[] cp = new int[others.length];
+        double[] rhoNow = new double[k];
+        for (int j = 0; j < k; j++) {
+            rhoNow[j] = rhoColdAt(j, hotMaxK);
+        }
+        currentHotMaxK = hotMaxK;
+        coldTables(i, rhoNow);
+        for (int o = 0; o < others.length; o++) {
+            for (int p = 0; p < cells[o].length; p++) {
+                hiColdCache[o][p] = otherColdAtMost(o, cells[o][p]);
+                hiColdF[o][p] = comps[others[o]].model().f(hiColdCache[o][p]);
+            }
+        }
+        double fLo = Math.max(0, rt[q].lower(levels[i + 1]) - rt[q].upper(levels[i]));
+        double fHi = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
+        // the level split into equal steps in α: while the clock crosses part s, its conversion lies in
+        // [b_s, b_{s+1}] and the others' in their box, so the part has its own floors, admissible temperature and least duration
+        double[] clockFloor = new double[parts];
+        double[] clockColdFloor = new double[parts];
+        double[] partF = new double[parts];
+        for (int s = 0; s < parts; s++) {
+            double b0 = s == 0 ? levels[i] : levels[i] + (levels[i + 1] - levels[i]) * s / parts;
+            double b1 = s == parts - 1 ? levels[i + 1] : levels[i] + (levels[i + 1] - levels[i]) * (s + 1) / parts;
+            clockFloor[s] = rt[q].minF(b0, b1);
+            clockColdFloor[s] = rt[q].minF(coldAtLeast(q, rt[q].lower(b0)), clockColdAtMost(i, b1, rhoNow[q]));
+            partF[s] = Math.max(0, rt[q].lower(b1) - rt[q].upper(b0));
+        }
+        double[] partAdm = new double[parts];
+        boolean any = false;
+        double hottest = floorK;
+        for (int flat = 0; flat < cellCount; flat++) {
+            double t0 = tau[flat];
+            if (!(t0 < best) || t0 > HORIZON_S) {
+                continue;
+            }
+            any = true;
+            decode(flat, c);
+            // could the target be reached during a move out of this node? (the others can advance at most
+            // ρ_j(hottest) ΔF_q in reduced time while the clock rises to the next level)
+            if (capable(i, c, fHi)) {
+                best = Math.min(best, t0);
+                continue;
+            }
+            // landing cells c' ≥ c, dimension by dimension while the move can still be made
+            System.arraycopy(c, 0, cp, 0, c.length);
+            while (true) {
+                // the move is nowhere hotter than its hottest part allows
+                double adm = floorK;
+                for (int s = 0; s < parts; s++) {
+                    partAdm[s] = admissible(s, c, cp, clockFloor[s], clockColdFloor[s], rhoNow, memo, memoPrev);
+                    adm = Math.max(adm, partAdm[s]);
+                }
+                hottest = Math.max(hottest, Math.min(adm, hotCeilingK));
+                double d = moveTime(adm, c, cp, t0, fLo, fHi);
+                if (d >= 0) {
+                    // each part takes at least its clock reduced time at the part's own admissible temperature
+                    double byParts = 0;
+                    for (int s = 0; s < parts; s++) {
+                        double kq = comps[q].rateConstant(Math.min(partAdm[s], hotCeilingK));
+                        byParts += kq > 0 ? partF[s] / kq : (partF[s] > 0 ? Double.POSITIVE_INFINITY : 0);
+                    }
+                    d = Math.max(d, byParts * (1 - 1e-12));
+                }
+                if (d >= 0) {
+                    int to = encode(cp);
+                    next[to] = Math.min(next[to], t0 + d);
+                }
+                // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
+                int o = 0;
+                while (o < others.length) {
+                    if (cp[o] + 1 < cells[o].length - 1 && reachable(i, o, c[o], cp[o] + 1, fHi)) {
+                        cp[o]++;
+                        break;
+                    }
+                    cp[o] = c[o];
+                    o++;
+                }
+                if (o == others.length) {
+                    break;
+                }
+            }
+        }
+        return new Level(any, hottest);
     }
 
     private int encode(int[] idx) {
@@ -349,29 +474,155 @@ final class JointBound {
         return lo <= rhoTop[o] * fHi * (1 + 1e-12);
     }
 
-    private boolean capable(int i, int[] c, double fHi, double hotMax) {
-        double u = w[q] * (1 - coldAtMost(q, levels[i + 1]));
+    private boolean capable(int i, int[] c, double fHi) {
+        double u = w[q] * (1 - coldAtMost(q, levels[i + 1], rhoCold[q]));
         for (int o = 0; o < others.length; o++) {
             int j = others[o];
             double reach = cellHi[o][c[o] + 1] + rhoTop[o] * fHi;
-            u += w[j] * (1 - coldAtMost(j, rt[j].conversionAtMost(reach)));
+            u += w[j] * (1 - coldAtMost(j, rt[j].conversionAtMost(reach), rhoCold[j]));
         }
         return u <= target;
     }
 
-    /** An upper bound on the cold corner's conversion when the hot corner's is at most a. */
-    private double coldAtMost(int j, double a) {
+    /**
+     * An upper bound on the cold corner's conversion when the hot corner's is at most a and the hot corner has
+     * been no hotter than a temperature at which k_j(T)/k_j(T − 2ΔT) is {@code rho} (the ratio falls with T).
+     */
+    private double coldAtMost(int j, double a, double rho) {
         if (a >= 1) {
             return 1;
         }
-        return rt[j].conversionAtMost(rt[j].upper(a) / rhoCold[j]);
+        return rt[j].conversionAtMost(rt[j].upper(a) / rho);
     }
 
-    /** A lower bound on the duration of the move (i, c) → (i+1, cp) started at t0 or later; −1 if impossible. */
-    private double moveTime(int i, int[] c, int[] cp, double t0, double fLo, double fHi, double clockFloor,
-                            double clockColdFloor, java.util.HashMap<Long, Double> memo,
-                            java.util.HashMap<Long, Double> memoPrev) {
-        double adm = admissible(i, c, cp, clockFloor, clockColdFloor, memo, memoPrev);
+    /** Per level done: the hottest its moves could be (min with the hot ceiling), the clock's reduced time it spans (upper). */
+    private final double[] levelHot;
+    private final double[] levelSpan;
+    /** The clock's cold reduced time gained over the levels before the current one (upper bound). */
+    private double clockColdBefore;
+    /** Per other component: the current level's weights 1/ρ_j and caps of hot reduced time, by weight descending. */
+    private double[][] fillWeight;
+    private double[][] fillCap;
+
+    /**
+     * The per-level accounts of the cold corner for level i, the current level's hot corner taken to be no hotter than
+     * where ρ_j is rhoNow[j] (docs/model.md, "Lower bounds", 2).
+     */
+    private void coldTables(int i, double[] rhoNow) {
+        double sum = 0;
+        for (int l = 0; l < i; l++) {
+            sum += levelSpan[l] / rhoColdAt(q, levelHot[l]);
+        }
+        clockColdBefore = sum * (1 + 1e-12);
+        double spanNow = rt[q].upper(levels[i + 1]) - rt[q].lower(levels[i]);
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            double[][] rows = new double[i + 1][];
+            for (int l = 0; l < i; l++) {
+                rows[l] = new double[]{1 / rhoColdAt(j, levelHot[l]), rho(j, levelHot[l]) * levelSpan[l] * (1 + 1e-12)};
+            }
+            double hotNow = Math.min(hotCeilingK, currentHotMaxK);
+            rows[i] = new double[]{1 / rhoNow[j], rho(j, hotNow) * spanNow * (1 + 1e-12)};
+            Arrays.sort(rows, (x, y) -> Double.compare(y[0], x[0]));
+            fillWeight[o] = new double[i + 1];
+            fillCap[o] = new double[i + 1];
+            for (int l = 0; l <= i; l++) {
+                fillWeight[o][l] = rows[l][0];
+                fillCap[o][l] = rows[l][1];
+            }
+        }
+    }
+
+    /** Per other component and grid point: its cold conversion bound in the current level's evaluation, and f there. */
+    private double[][] hiColdCache;
+    private double[][] hiColdF;
+    /** Per other component and grid point: f at the cold corner's lower conversion bound. */
+    private double[][] cellColdLoF;
+
+    /**
+     * f of other component o at the lower end of its cold conversions on a move from cell c into cell cp (the lower
+     * bound from c's bottom, clipped to the upper bound from cp's top).
+     */
+    private double coldLowF(int o, int c, int cp) {
+        return cellColdLo[o][c] <= hiColdCache[o][cp + 1] ? cellColdLoF[o][c] : hiColdF[o][cp + 1];
+    }
+    /** The bound taken for the current level's hot corner [K]. */
+    private double currentHotMaxK;
+
+    /** An upper bound on the clock's cold conversion while its hot conversion is at most b during level i. */
+    private double clockColdAtMost(int i, double b, double rhoNowQ) {
+        if (b >= 1) {
+            return 1;
+        }
+        double v = clockColdBefore + Math.max(0, rt[q].upper(b) - rt[q].lower(levels[i])) / rhoNowQ;
+        return rt[q].conversionAtMost(v * (1 + 1e-12));
+    }
+
+    /**
+     * An upper bound on other component o's cold conversion while its hot conversion is at most a: its hot reduced time
+     * (at most F(a)) was gained level by level, at most ρ_jq(hottest) times the clock's span on each, and each part gave
+     * the cold corner at most 1/ρ_j(hottest) of itself; the largest total fills the levels of largest weight first.
+     */
+    private double otherColdAtMost(int o, double a) {
+        if (a >= 1) {
+            return 1;
+        }
+        int j = others[o];
+        double x = rt[j].upper(a);
+        double v = 0;
+        double[] wts = fillWeight[o];
+        double[] caps = fillCap[o];
+        for (int l = 0; l < wts.length && x > 0; l++) {
+            double take = Math.min(x, caps[l]);
+            v += take * wts[l];
+            x -= take;
+        }
+        // beyond every cap (no recipe gets there): the largest weight
+        v += x * wts[0];
+        return rt[j].conversionAtMost(v * (1 + 1e-12));
+    }
+
+    /** k_j(T)/k_j(T − 2ΔT), lowered against rounding (1 without spread). */
+    private double rhoColdAt(int j, double hotK) {
+        if (spread <= 0) {
+            return 1;
+        }
+        double t = Math.min(hotK, hotCeilingK);
+        return Math.max(1, comps[j].rateConstant(t) / comps[j].rateConstant(t - 2 * spread) * (1 - 1e-12));
+    }
+
+    /**
+     * A lower bound on the cold corner's reduced time when the hot corner's is at least v (before the 2-day horizon):
+     * the time the hot corner spends below T_s gains it at most HORIZON k_j(T_s); above T_s the cold corner gains at
+     * least 1/ρ_j(T_s) of what the hot one gains. The best T_s of a 2 K grid is taken.
+     */
+    private double coldLeast(int j, double v) {
+        if (!(v > 0) || spread <= 0) {
+            return spread <= 0 ? Math.max(v, 0) : 0;
+        }
+        double bestLo = 0;
+        for (double ts = floorK; ts <= hotCeilingK; ts += 2) {
+            double lo = (v - HORIZON_S * comps[j].rateConstant(ts) * (1 + 1e-12)) / rhoColdAbove(j, ts);
+            bestLo = Math.max(bestLo, lo * (1 - 1e-12));
+        }
+        return bestLo;
+    }
+
+    /** ρ_j at hot temperature T, raised against rounding. */
+    private double rhoColdAbove(int j, double hotK) {
+        return comps[j].rateConstant(hotK) / comps[j].rateConstant(hotK - 2 * spread) * (1 + 1e-12);
+    }
+
+    /** A lower bound on the cold corner's conversion when the hot corner's reduced time is at least v. */
+    private double coldAtLeast(int j, double v) {
+        return rt[j].conversionAtLeast(coldLeast(j, v));
+    }
+
+    /**
+     * A lower bound on the duration of the move (i, c) → (i+1, cp) started at t0 or later, given the highest
+     * admissible hot-corner temperature of its box; −1 if impossible.
+     */
+    private double moveTime(double adm, int[] c, int[] cp, double t0, double fLo, double fHi) {
         // Jensen's bound with the region's top temperature (the cap left out) ...
         double d = duration(c, cp, Math.min(adm, hotCeilingK), fLo, fHi);
         if (d < 0 || adm <= cap.wafer(t0) + spread) {
@@ -412,17 +663,23 @@ final class JointBound {
     /**
      * The highest hot-corner temperature at which the monotone limits hold with the least gas of the
      * move's box at the hot corner, and at the cold corner 2ΔT lower with the least gas its
-     * conversions can give (at most {@link #coldAtMost} of the box's top), memoised by the grid points
-     * that give the least gas.
+     * conversions can give (between {@link #coldAtLeast} of the box's bottom and {@link #coldAtMost} of its
+     * top), memoised by the cells the move leaves and enters.
      */
-    private double admissible(int i, int[] c, int[] cp, double clockFloor, double clockColdFloor,
+    private double admissible(int part, int[] c, int[] cp, double clockFloor, double clockColdFloor, double[] rhoNow,
                               java.util.HashMap<Long, Double> memo, java.util.HashMap<Long, Double> memoPrev) {
+        // the floors depend on the grid point that gives the hot corner's least f, on whether the cold corner's least f is
+        // at its lower end (then on the cell left) and on the cell entered
         long key = 0;
         for (int o = 0; o < others.length; o++) {
-            int j = others[o];
+            int n = cells[o].length;
             int e = cellF[o][c[o]] <= cellF[o][cp[o] + 1] ? c[o] : cp[o] + 1;
-            key = (key * cells[o].length + e) * cells[o].length + (cp[o] + 1);
+            double fLoCold = coldLowF(o, c[o], cp[o]);
+            int low = fLoCold < hiColdF[o][cp[o] + 1] ? c[o] : n;
+            key = ((key * n + e) * (n + 1) + low) * n + (cp[o] + 1);
         }
+        // spread the bits (a bijection: odd multiplier) so that the hash map's bins stay short
+        key = (key * parts + part) * 0x9E3779B97F4A7C15L;
         Double m = memo.get(key);
         if (m != null) {
             return m;
@@ -431,15 +688,10 @@ final class JointBound {
         double[] coldFloors = new double[k];
         floors[q] = clockFloor;
         coldFloors[q] = clockColdFloor;
-        long kk = key;
-        for (int o = others.length - 1; o >= 0; o--) {
+        for (int o = 0; o < others.length; o++) {
             int j = others[o];
-            int h = (int) (kk % cells[o].length);
-            kk /= cells[o].length;
-            int e = (int) (kk % cells[o].length);
-            kk /= cells[o].length;
-            floors[j] = cellF[o][e];
-            coldFloors[j] = rt[j].minF(rt[j].alpha0(), coldAtMost(j, cells[o][h]));
+            floors[j] = Math.min(cellF[o][c[o]], cellF[o][cp[o] + 1]);
+            coldFloors[j] = Math.min(coldLowF(o, c[o], cp[o]), hiColdF[o][cp[o] + 1]);
         }
         Double g = memoPrev == null ? null : memoPrev.get(key);
         double t = LowerBound.highestFeasible(temp -> margin(temp, floors, coldFloors), hotCeilingK, floorK,

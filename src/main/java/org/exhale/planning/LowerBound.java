@@ -49,9 +49,19 @@ public final class LowerBound {
         }
     }
 
-    /** Grid resolution of the joint bound: relative change of f between clock levels and across a cell. */
-    static final double CLOCK_DELTA = 0.05;
+    /**
+     * Grid resolution of the joint bound: relative change of f between clock levels (several components; one
+     * component has no cells to cross, so a finer clock costs milliseconds) and across a cell, and the widest cell in
+     * reduced time (a cell lets the other component be re-placed anywhere in it at every level, so it must be narrow
+     * against that component's motion per level; measured on qs-two-pressure: 0.015 87.8 min, 0.01 88.4, 0.0075 88.9,
+     * the joint bound of the dense demo taking 0.45 / 0.67 / 0.98 s).
+     */
+    static final double CLOCK_DELTA = 0.1;
+    static final double CLOCK_DELTA_ONE = 0.005;
     static final double CELL_DELTA = 0.03;
+    static final double CELL_WIDTH = 0.01;
+    /** Parts of each clock level with several components (each with its own floors). */
+    static final int CLOCK_PARTS = 2;
     /** Shortest time step of the envelope bound [s] (measured: 4× finer moves the bench bounds by under 0.02 %). */
     static final double ENVELOPE_STEP_S = 0.25;
 
@@ -86,9 +96,9 @@ public final class LowerBound {
             list.add(new Estimate("vent_capacity", v.ventS(), true,
                     "gas made <= most the cavity can store + most the cap can vent at the admissible pressure; any gas regime"));
         }
-        // one component has no cells to cross: a ten times finer clock grid costs milliseconds and tightens the bound
-        double clockDelta = bake.polymer().size() == 1 ? CLOCK_DELTA / 10 : CLOCK_DELTA;
-        JointBound.Outcome j = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA).compute();
+        double clockDelta = bake.polymer().size() == 1 ? CLOCK_DELTA_ONE : CLOCK_DELTA;
+        JointBound.Outcome j = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, CELL_WIDTH,
+                bake.polymer().size() == 1 ? 1 : CLOCK_PARTS).compute();
         list.add(new Estimate("joint", j.boundS(), quasiSteady, quasiSteady
                 ? "all components and both corners jointly, every monotone instantaneous limit, quasi-steady gas"
                 : "as for quasi-steady gas; the gas here is stored (not quasi-steady), so this is an estimate"));

@@ -174,6 +174,30 @@ final class ReducedTime {
         return Math.min(1, Math.nextUp(a) + 1e-15);
     }
 
+    /**
+     * A lower bound on the conversion of a corner whose reduced time is at least v: the largest α whose
+     * upper F is at most v (α0 when v ≤ 0), rounded down.
+     */
+    double conversionAtLeast(double v) {
+        if (!(v > 0)) {
+            return alpha0;
+        }
+        if (Double.isInfinite(v)) {
+            return 1;
+        }
+        if (xs != null) {
+            // upper(xs[i]) = hi[i] ≥ F(xs[i]): the last table point whose upper sum is at most v has F at most v
+            int i = java.util.Arrays.binarySearch(hi, v);
+            int at = i >= 0 ? i : -i - 2;
+            while (at + 1 < hi.length && hi[at + 1] <= v) {
+                at++;
+            }
+            return at <= 0 ? alpha0 : xs[at];
+        }
+        double a = inverseAbsolute((v - SAFE * base) / (1 + SAFE) + base);
+        return Math.max(alpha0, Math.min(1, Math.nextDown(a) - 1e-15));
+    }
+
     double alpha0() {
         return alpha0;
     }

@@ -240,7 +240,8 @@ class LowerBoundTest {
         // an independent construction of a near-optimal recipe: the highest setpoint that keeps every instantaneous limit
         // at both corners (quasi-steady), at most the fastest ramp, followed by a simple Euler ride of the conversions;
         // 40 ramps through points of that ride, slowed until the simulator verifies it (common practice, no source)
-        for (BakeCase b : new BakeCase[]{porousPressureBinds(), sharedPressureBudget()}) {
+        for (BakeCase b : new BakeCase[]{porousPressureBinds(), sharedPressureBudget(),
+                CaseYamlReader.read(Path.of("data/bench/qs-two-pressure.yaml")).bake()}) {
             LowerBound.Result bound = LowerBound.compute(b, TOOL, true);
             BakeResult ride = ride(b, 40);
             assertTrue(ride != null, b.name() + ": no verified ride");
@@ -249,7 +250,7 @@ class LowerBoundTest {
                     ride.timeToTargetS() / 60, bound.boundS() / 60, ratio);
             assertTrue(ratio >= 1 - 1e-9, b.name() + ": the ride beats the bound, ratio " + ratio);
             // tightness: the bound is within 20 % of this quickly built ride (empirical: the ride is itself not optimal;
-            // measured 1.165 on the porous case)
+            // measured 1.073 on the porous case, 1.092 on the dense disc, 1.074 on qs-two-pressure)
             assertTrue(ratio < 1.2, b.name() + ": bound loose, ratio " + ratio);
         }
     }
@@ -348,12 +349,35 @@ class LowerBoundTest {
         }
     }
 
+    @Test
+    void twoComponentBoundIsNeverBeatenAndLiesWithinToleranceOfAVerifiedGreedySchedule() {
+        // Derived, no published source: two components (first order and random scission) sharing a quasi-steady pressure
+        // budget, ±2 K. Seeded random recipes pushed to the boundary of the limits never beat the bound; and the bound lies
+        // within a stated tolerance below a near-optimal schedule built here by a different method (the greedy per-3 s
+        // setpoint of the one-component check, every component at both corners by RK4 under the exact lag), verified by
+        // the simulator — which, being a verified recipe, must not beat the bound either.
+        CaseFile cf = CaseYamlReader.read(Path.of("data/bench/qs-two-pressure.yaml"));
+        BakeCase b = cf.bake();
+        neverBeaten(b, 20261208L, 24);
+        LowerBound.Result bound = LowerBound.compute(b, cf.tool(), true);
+        BakeResult greedy = greedySchedule(b, cf.tool(), 3);
+        assertTrue(greedy != null, "no verified greedy schedule");
+        double ratio = greedy.timeToTargetS() / bound.boundS();
+        System.out.printf("qs-two-pressure: greedy schedule %.2f min, bound %.2f min (%s), ratio %.4f%n",
+                greedy.timeToTargetS() / 60, bound.boundS() / 60, best(bound), ratio);
+        assertTrue(ratio >= 1 - 1e-9, "a verified schedule beats the bound, ratio " + ratio);
+        // tolerance 10 % (empirical; docs/model.md, "Lower bounds", says where the rest is lost: the joint programme's
+        // cells, the cold corner known only through per-level temperature bounds, the ramp rate); measured 1.051 (before this
+        // bound was tightened: 1.199)
+        assertTrue(ratio < 1.10, "bound loose, ratio " + ratio);
+    }
+
     private static String best(LowerBound.Result r) {
         return r.estimates().stream().filter(e -> e.rigorous() && e.seconds() == r.boundS()).findFirst().orElseThrow().name();
     }
 
     /**
-     * A greedy one-component schedule: per control interval the highest setpoint (at most one fastest
+     * A greedy schedule (every component): per control interval the highest setpoint (at most one fastest
      * ramp above the last, at most the ceiling less the spread) at which every instantaneous limit
      * holds with a margin at both corners at the interval's starting conversions, for the setpoint
      * itself and the wafer on its way there; the conversions then follow by RK4 (0.5 s) under the
@@ -362,18 +386,22 @@ class LowerBoundTest {
      */
     private static BakeResult greedySchedule(BakeCase b, Tool tool, double controlS) {
         InstantLimits lim = new InstantLimits(b);
-        var comp = b.polymer().component(0);
+        int k = lim.size();
         double s = b.wafer().spreadK();
         double tau = b.wafer().lagS();
         double capK = b.limits().ceilingK() - s;
         for (double m = 1.002; m < 1.2; m = 1 + 2 * (m - 1)) {
             double sp = b.recipeStartK();
             double wafer = sp;
-            double[] hot = {b.polymer().initialConversion(0)};
-            double[] cold = {hot[0]};
+            double[] hot = new double[k];
+            double[] cold = new double[k];
+            for (int j = 0; j < k; j++) {
+                hot[j] = b.polymer().initialConversion(j);
+                cold[j] = hot[j];
+            }
             List<Step> steps = new ArrayList<>();
             double t = 0;
-            while (1 - cold[0] > b.limits().residue() && t < 86_400) {
+            while (unconverted(b, cold) > b.limits().residue() && t < 86_400) {
                 double hi = Math.min(capK, sp + tool.maxRampUpKPerS() * controlS);
                 double lo = Math.max(b.recipeStartK() - 50, sp - tool.maxRampDownKPerS() * controlS);
                 double next = lo;
@@ -401,8 +429,11 @@ class LowerBoundTest {
                     double w0 = lagged(sp, rate, wafer, tau, t0);
                     double wm = lagged(sp, rate, wafer, tau, t0 + h / 2);
                     double w1 = lagged(sp, rate, wafer, tau, t0 + h);
-                    hot[0] = rk4(comp, hot[0], w0 + s, wm + s, w1 + s, h);
-                    cold[0] = rk4(comp, cold[0], w0 - s, wm - s, w1 - s, h);
+                    for (int j = 0; j < k; j++) {
+                        var comp = b.polymer().component(j);
+                        hot[j] = rk4(comp, hot[j], w0 + s, wm + s, w1 + s, h);
+                        cold[j] = rk4(comp, cold[j], w0 - s, wm - s, w1 - s, h);
+                    }
                 }
                 wafer = lagged(sp, rate, wafer, tau, controlS);
                 if (Math.abs(next - sp) > 1e-9) {
@@ -422,6 +453,14 @@ class LowerBoundTest {
             }
         }
         return null;
+    }
+
+    private static double unconverted(BakeCase b, double[] alpha) {
+        double u = 0;
+        for (int j = 0; j < alpha.length; j++) {
+            u += b.polymer().component(j).fraction() * (1 - alpha[j]);
+        }
+        return u;
     }
 
     /**
@@ -500,6 +539,12 @@ class LowerBoundTest {
                 assertTrue(rt.lower(a) <= rt.upper(a), m.id());
                 double back = rt.conversionAtMost(rt.lower(a));
                 assertTrue(back >= a - 1e-12 && back <= a + 1e-3, m.id() + ": " + back + " vs " + a);
+                // conversionAtLeast never exceeds the conversion at a reduced time (here 1 % below the quadrature's F(a),
+                // which is within 0.2 % of the true one, so the true conversion there is below a), and is not far below
+                double least = rt.conversionAtLeast(0.99 * s);
+                assertTrue(least <= a, m.id() + ": at least " + least + " vs " + a);
+                double atUpper = rt.conversionAtLeast(rt.upper(a));
+                assertTrue(Math.abs(atUpper - a) <= 1e-3, m.id() + ": " + atUpper + " vs " + a);
             }
         }
     }
