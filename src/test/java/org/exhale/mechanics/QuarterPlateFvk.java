@@ -32,6 +32,9 @@ final class QuarterPlateFvk {
     /** Clustering of the mapping along the short direction x (wall spacing (1−β)/nx, centre (1+β)/nx). */
     final double betaX;
 
+    /** Largest accepted contraction of the Newton steps before the Jacobian is rebuilt. */
+    static double CONTRACTION = 0.5;
+
     final int nx;
     final int ny;
     final double b;
@@ -255,9 +258,9 @@ final class QuarterPlateFvk {
             lu = new double[unknowns * (2 * band + 1)];
         }
         boolean converged = false;
+        fresh = false;
         double lastStep = Double.POSITIVE_INFINITY;
-        // Newton's method with the factored Jacobian kept (across load steps too) while the steps shrink
-        // by at least a factor 2
+        // Newton's method with the factored Jacobian kept while the steps shrink by at least a factor 2
         for (int it = 0; it < 200 && !converged; it++) {
             iterations++;
             residual(s, bigQ, r);
@@ -285,9 +288,9 @@ final class QuarterPlateFvk {
             if (!(wMax < 1e6)) {
                 throw new IllegalStateException("Newton diverged at Q " + bigQ);
             }
-            converged = dw <= 1e-10 * wMax && du <= 1e-10 * uMax + 1e-14;
+            converged = dw <= 1e-9 * wMax && du <= 1e-9 * uMax + 1e-14;
             double step = dw / wMax + du / (uMax + 1e-300);
-            if (step > 0.5 * lastStep || it % 40 == 39) {
+            if (step > CONTRACTION * lastStep || it % 40 == 39) {
                 fresh = false;
             }
             lastStep = step;
