@@ -33,7 +33,7 @@ final class QuarterPlateFvk {
     final double betaX;
 
     /** Largest accepted contraction of the Newton steps before the Jacobian is rebuilt. */
-    static double CONTRACTION = 0.5;
+    private static final double CONTRACTION = 0.5;
 
     final int nx;
     final int ny;

@@ -264,6 +264,39 @@ class RectangleFvkTest {
                 "L/w " + aspect + " in compression: strip/2D " + min[0] + ", " + where);
     }
 
+    /*
+     * Buckling under equi-biaxial compression (derived, no published source). The cap takes the
+     * strip's σ_cr = (π²/3) Ē (h/w)² for a rectangle and calls it a lower bound. For L/w ≥ 2 it is
+     * not: the small-load 2D centre deflection is still positive (and amplified) at 0.9 σ_cr but has
+     * changed sign at σ_cr, so a doubly symmetric mode buckles between the two; for L/w = 1.5 it is
+     * still positive at σ_cr. Independent argument for a long plate: the Rayleigh quotient of
+     * w = (1 + cos πx/a) cos ky under an equi-biaxial force is N a²/D = (π⁴ + 2π²t + 3t²)/(π² + 3t),
+     * t = (ka)², whose minimum (2√2/3) π² = 0.943 π² (at t = 0.138 π²) is below the strip's π².
+     * Both grids (16 and 24 intervals) must agree on the sign.
+     */
+    @ParameterizedTest
+    @CsvSource({"1.5, false", "2.0, true", "4.0, true"})
+    void longRectanglesBuckleBelowTheStripUnderBiaxialCompression(double aspect, boolean below) {
+        double cr = cap(aspect, 25, 0).bucklingStressPa();
+        double h = WIDTH / 25;
+        assertEquals(Math.PI * Math.PI, cr * h * (WIDTH / 2) * (WIDTH / 2) / (EBAR * h * h * h / 12), 1e-9,
+                "the cap's rectangle buckling stress is the strip's, s0 = π²");
+        for (int n : new int[] {COARSE, FINE}) {
+            double at09 = smallLoadDeflection(aspect, -0.9 * Math.PI * Math.PI, n);
+            double at10 = smallLoadDeflection(aspect, -Math.PI * Math.PI, n);
+            double free = smallLoadDeflection(aspect, 0, n);
+            assertTrue(at09 > 2 * free, "L/w " + aspect + ": amplified at 0.9 σ_cr: " + at09 / free);
+            assertEquals(below, at10 < 0, "L/w " + aspect + ", n " + n + ": deflection at σ_cr " + at10 / free
+                    + " of the unstressed one");
+        }
+    }
+
+    private static double smallLoadDeflection(double aspect, double s0, int n) {
+        QuarterPlateFvk plate = new QuarterPlateFvk(n, (int) Math.round(n * Math.min(1.5, aspect)), aspect, NU, s0, BETA);
+        plate.solve(1e-6);
+        return plate.centreDeflection();
+    }
+
     /**
      * Prints the whole comparison (the table in docs/model.md): per aspect ratio, pre-stress and load,
      * the ratios strip / 2D of the largest face stress, the edge and centre face stresses and the
