@@ -25,8 +25,8 @@ import org.junit.jupiter.params.provider.CsvSource;
  * +3 and −0.5 times the strip's buckling stress (π²/3) Ē (h/w)² (s0 = 0, 3π², −π²/2); pressures at
  * which the strip deflects 0.3, 1, 3, 10 and 20 thicknesses. Each 2D value is the Richardson
  * extrapolation (second order) of grids with 16 and 24 intervals across the half width; the
- * difference from a 24/32 extrapolation is at most 0.6 % for the largest face stress (at δ/h = 20,
- * where the bending boundary layer is thinnest) and below 0.1 % elsewhere (docs/model.md).
+ * difference from a 24/32 extrapolation is at most 0.6 % for the largest face stress at δ/h = 20
+ * (where the bending boundary layer is thinnest) and 0.3 % at the smaller loads (docs/model.md).
  *
  * <p>Finding (measured here, derived, no published source): the strip is conservative for the
  * square by at least 15 %, but NOT everywhere for longer rectangles. The 2D maximum face stress
