@@ -33,7 +33,7 @@ import org.hipparchus.util.FastMath;
  *       small-deflection limit the strip's edge stress ½ q w²/h² is the largest of Roark's
  *       tabulated clamped rectangles (β1 ≤ 0.5, Table 11.4 case 8a). Against a 2D FvK solution it is
  *       conservative for near-square spans but not everywhere for L/w ≥ 1.5: the 2D largest face
- *       stress exceeds it by up to 1.4 % without compression and up to 9 % with 0.5 σ_cr
+ *       stress exceeds it by up to about 1.5 % without compression and up to 9 % with 0.5 σ_cr
  *       compression (docs/model.md; RectangleFvkTest).</li>
  *   <li><b>Face stresses</b>: σ_edge = N/h + 6|M_e|/h², σ_centre = N/h + 6|M_c|/h². Strength,
  *       the bonded channel crack and delamination are checked on the larger of the two.</li>
