@@ -29,11 +29,12 @@ import org.hipparchus.util.FastMath;
  *       are then corrected to the axisymmetric Föppl–von Kármán solution by the tabulated ratios of
  *       {@link DiscCorrection} (finite-difference FvK solutions; within 2 % of an independent
  *       shooting solution in the tests).</li>
- *   <li><b>Rectangle</b> w × L: the strip of width w (the solution across the long edges). It is
- *       conservative: in the small-deflection limit the strip's edge stress ½ q w²/h² is the
- *       largest of Roark's clamped-rectangle values (β1 ≤ 0.5, Table 11.4 case 8a), and in the
- *       membrane regime the short edges only add support, so the strip deflects and stretches at
- *       least as much as any rectangle of the same width.</li>
+ *   <li><b>Rectangle</b> w × L: the strip of width w (the solution across the long edges). In the
+ *       small-deflection limit the strip's edge stress ½ q w²/h² is the largest of Roark's
+ *       tabulated clamped rectangles (β1 ≤ 0.5, Table 11.4 case 8a). Against a 2D FvK solution it is
+ *       conservative for near-square spans but not everywhere for L/w ≥ 1.5: the 2D largest face
+ *       stress exceeds it by up to about 1.5 % without compression and up to 9 % with 0.5 σ_cr
+ *       compression (docs/model.md; RectangleFvkTest).</li>
  *   <li><b>Face stresses</b>: σ_edge = N/h + 6|M_e|/h², σ_centre = N/h + 6|M_c|/h². Strength,
  *       the bonded channel crack and delamination are checked on the larger of the two.</li>
  *   <li><b>Channel cracking where bonded</b> G = Z σ_max² h/Ē, Z = 1.976, only while σ_max &gt; 0
@@ -50,7 +51,8 @@ import org.hipparchus.util.FastMath;
  *       largest face-stress magnitude (either face, edge or centre).</li>
  *   <li><b>Buckling</b> of the freed cap under compressive σ_th: line σ_cr = (π²/3) Ē (h/w)²
  *       (clamped strip); disc σ_cr = (j₁₁²/3) Ē (h/w)², j₁₁ = 3.8317 the first zero of J₁;
- *       rectangle: the line value for the short side (a lower bound).</li>
+ *       rectangle: the line value for the short side (not a lower bound under equi-biaxial
+ *       compression for L/w ≥ 2: docs/model.md).</li>
  * </ul>
  *
  * <p>Validity: Kirchhoff plates (w/h ≳ 10), moderate rotations, linear elastic, isotropic film;
