@@ -83,6 +83,15 @@ public final class LowerBound {
      * The bounds of a case whose gas is ({@code quasiSteady}) or is not quasi-steady.
      */
     public static Result compute(BakeCase bake, Tool tool, boolean quasiSteady) {
+        return compute(bake, tool, quasiSteady, true);
+    }
+
+    /**
+     * As {@link #compute(BakeCase, Tool, boolean)}; with {@code withEstimates} false the joint and
+     * envelope bounds are left out where they would only be estimates (stored gas), which saves the
+     * planner most of a second on a dense cap.
+     */
+    public static Result compute(BakeCase bake, Tool tool, boolean quasiSteady, boolean withEstimates) {
         long t0 = System.nanoTime();
         double spread = bake.wafer().spreadK();
         TemperatureCap cap = new TemperatureCap(bake.recipeStartK(), bake.limits().ceilingK() - spread,
@@ -95,6 +104,10 @@ public final class LowerBound {
         if (v.ventS() > 0) {
             list.add(new Estimate("vent_capacity", v.ventS(), true,
                     "gas made <= most the cavity can store + most the cap can vent at the admissible pressure; any gas regime"));
+        }
+        if (!quasiSteady && !withEstimates) {
+            return new Result(Math.max(v.ceilingS(), v.ventS()), v.ceilingS(), -1, true, false, java.util.List.copyOf(list),
+                    (System.nanoTime() - t0) / 1e9);
         }
         double clockDelta = bake.polymer().size() == 1 ? CLOCK_DELTA_ONE : CLOCK_DELTA;
         JointBound.Outcome j = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, CELL_WIDTH,

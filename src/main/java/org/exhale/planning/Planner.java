@@ -72,7 +72,7 @@ public final class Planner {
     }
 
     private PlanResult run() {
-        LowerBound.Result bound = LowerBound.compute(bake, tool, quasiSteady());
+        LowerBound.Result bound = LowerBound.compute(bake, tool, quasiSteady(), false);
         boolean rigorous = bound.rigorous();
         if (capK <= startK) {
             return infeasible(bound, rigorous, "ceiling", "the ceiling less the spread is not above the start temperature",
