@@ -132,8 +132,9 @@ final class PlanCommand implements Callable<Integer> {
         m.put("lower_bounds", bounds);
         m.put("lower_bound_note", p.boundRigorous()
                 ? "lower_bound_s is the largest rigorous bound (" + boundKind(p.lowerBound()) + "): no recipe within the limits "
-                  + "can be shorter" + (p.lowerBound().quasiSteady() ? "" : "; the gas is stored here (not quasi-steady), where the "
-                  + "joint and envelope bounds would only be estimates, so they are not computed")
+                  + "can be shorter" + (p.lowerBound().quasiSteady() ? "" : "; the gas is stored here (not quasi-steady): the "
+                  + "joint programme follows each corner's stored gas and venting (joint_stored); the quasi-steady joint and "
+                  + "envelope bounds would only be estimates, so they are not computed")
                 : "the bound is an estimate here, not a guarantee");
         if (p.feasible()) {
             m.put("margins", SummaryJsonWriter.margins(p.verification().margins()));

@@ -68,6 +68,17 @@ final class JointBound {
     private final double[] rhoTop;
     /** Per other component and grid point: a lower bound on the cold corner's conversion when the hot one is there. */
     private final double[][] cellColdLo;
+    /** Stored gas (null when the gas is quasi-steady): each corner's storage and venting, docs/model.md bound 5. */
+    private final StoredGas storage;
+    /** With stored gas: per clock level, the corner whose stored gas is followed (0 hot, 1 cold); any choice is rigorous. */
+    private final int[] tracked;
+    /** Quasi-steady: per clock level, the corner whose limits bound the leading node's moves (0 hot, 1 cold). */
+    private int[] binding;
+    /** Bins of the hot corner's stored gas (1 when quasi-steady) and their width [mol/m²]. */
+    private final int bins;
+    private final double binWidth;
+    /** With stored gas: the hottest temperature at which the monotone limits hold at both corners with no gas [K]. */
+    private double hardK = Double.NaN;
 
     /**
      * @param clockDelta the largest relative change of the clock's f between levels
@@ -77,6 +88,17 @@ final class JointBound {
      */
     JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta,
                double cellWidth, int parts) {
+        this(bake, limits, cap, spread, clockDelta, cellDelta, cellWidth, parts, 0, null);
+    }
+
+    /**
+     * @param storedBins 0 for quasi-steady gas; otherwise the gas may be stored, and one corner's stored gas is
+     *                   followed in this many bins (the pressure limits then enter only through storage and venting)
+     * @param tracked    with stored gas, per clock level the corner followed (0 hot, 1 cold; null: the hot one); where
+     *                   it changes, the newly followed corner is taken to hold no gas (which only lowers the bound)
+     */
+    JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta,
+               double cellWidth, int parts, int storedBins, int[] tracked) {
         this.limits = limits;
         this.cap = cap;
         this.spread = spread;
@@ -128,6 +150,21 @@ final class JointBound {
         this.gen = new double[k];
         this.genCold = new double[k];
         this.capped = new CappedClock(comps[q], cap, spread);
+        if (storedBins > 0) {
+            this.storage = new StoredGas(bake, limits, comps, q, hotCeilingK, 2 * spread);
+            this.bins = storedBins;
+            this.binWidth = storage.maxStoredMolPerM2 / storedBins;
+            this.liveBins = new int[storedBins];
+            this.tracked = new int[levels.length];
+            for (int i = 0; i < levels.length; i++) {
+                this.tracked[i] = tracked == null ? 0 : tracked[Math.min(i, tracked.length - 1)];
+            }
+        } else {
+            this.storage = null;
+            this.bins = 1;
+            this.binWidth = 0;
+            this.tracked = null;
+        }
         this.levelHot = new double[levels.length];
         this.levelSpan = new double[levels.length];
         for (int l = 0; l + 1 < levels.length; l++) {
@@ -285,10 +322,11 @@ final class JointBound {
 
     Outcome compute() {
         int nl = levels.length;
-        double[] tau = new double[cellCount];
+        binding = storage == null ? new int[levels.length] : null;
+        double[] tau = new double[cellCount * bins];
         Arrays.fill(tau, Double.POSITIVE_INFINITY);
         tau[0] = 0;
-        double[] next = new double[cellCount];
+        double[] next = new double[cellCount * bins];
         java.util.HashMap<Long, Double> memoPrev = null;
         // H: an upper bound on the hot corner's temperature so far, over every move of a recipe whose path has run
         // through regular nodes only (docs/model.md, "Lower bounds", 2); at the start the wafer is at its setpoint
@@ -302,6 +340,17 @@ final class JointBound {
             // ρ(G + slack), and accept the level only if no move's admissible temperature exceeds G (else guess again)
             // (the guess follows the last level's rise, so that a level is seldom evaluated twice)
             double guessK = Math.max(hotSoFar, lastHottest) + Math.max(GUESS_K, 1.5 * lastRise);
+            if (storage != null && i > 0 && tracked[i] != tracked[i - 1]) {
+                // the newly followed corner's gas is only known to be ≥ 0: every node starts again from the lowest bin
+                for (int flat = 0; flat < cellCount; flat++) {
+                    double t = Double.POSITIVE_INFINITY;
+                    for (int m = 0; m < bins; m++) {
+                        t = Math.min(t, tau[flat * bins + m]);
+                        tau[flat * bins + m] = Double.POSITIVE_INFINITY;
+                    }
+                    tau[flat * bins] = t;
+                }
+            }
             java.util.HashMap<Long, Double> memo;
             while (true) {
                 memo = new java.util.HashMap<>();
@@ -329,8 +378,8 @@ final class JointBound {
             next = swap;
         }
         // nodes at the top level: any recipe that reaches the target later crossed one of them
-        for (int flat = 0; flat < cellCount; flat++) {
-            best = Math.min(best, tau[flat]);
+        for (double t : tau) {
+            best = Math.min(best, t);
         }
         return new Outcome(best > HORIZON_S ? Double.POSITIVE_INFINITY : best, q, levels.length, cellCount, evaluations);
     }
@@ -385,8 +434,27 @@ final class JointBound {
         double[] partAdm = new double[parts];
         boolean any = false;
         double hottest = floorK;
+        int nb = bins;
+        LevelMemo phiMemo = storage == null ? null : new LevelMemo();
+        // the leading node (earliest τ): which corner's limits bound its moves (quasi-steady; guides the stored-gas bound)
+        int leader = -1;
+        double leadT = Double.POSITIVE_INFINITY;
         for (int flat = 0; flat < cellCount; flat++) {
-            double t0 = tau[flat];
+            if (tau[flat * nb] < leadT) {
+                leadT = tau[flat * nb];
+                leader = flat;
+            }
+        }
+        int hotVotes = 0;
+        int coldVotes = 0;
+        double[] endKin = new double[nb];
+        double[] dv = new double[2 * nb - 1];
+        double clockGas = limits.gasifiable(q) * (levels[i + 1] - levels[i]);
+        for (int flat = 0; flat < cellCount; flat++) {
+            double t0 = Double.POSITIVE_INFINITY;
+            for (int m = 0; m < nb; m++) {
+                t0 = Math.min(t0, tau[flat * nb + m]);
+            }
             if (!(t0 < best) || t0 > HORIZON_S) {
                 continue;
             }
@@ -406,9 +474,16 @@ final class JointBound {
                 for (int s = 0; s < parts; s++) {
                     partAdm[s] = admissible(s, c, cp, clockFloor[s], clockColdFloor[s], rhoNow, memo, memoPrev);
                     adm = Math.max(adm, partAdm[s]);
+                    if (flat == leader && storage == null && spread > 0) {
+                        if (coldBinds(partAdm[s], c, cp, clockFloor[s], clockColdFloor[s])) {
+                            coldVotes++;
+                        } else {
+                            hotVotes++;
+                        }
+                    }
                 }
                 hottest = Math.max(hottest, Math.min(adm, hotCeilingK));
-                double d = moveTime(adm, c, cp, t0, fLo, fHi);
+                double d = duration(c, cp, Math.min(adm, hotCeilingK), fLo, fHi);
                 if (d >= 0) {
                     // each part takes at least its clock reduced time at the part's own admissible temperature
                     double byParts = 0;
@@ -417,10 +492,18 @@ final class JointBound {
                         byParts += kq > 0 ? partF[s] / kq : (partF[s] > 0 ? Double.POSITIVE_INFINITY : 0);
                     }
                     d = Math.max(d, byParts * (1 - 1e-12));
-                }
-                if (d >= 0) {
+                    // while the cap still rises, the clock's own reduced time: a move that starts at t ≥ t0 and ends at
+                    // e gains ΔF_q ≤ ∫_t^e k_q(min(T_top, cap(s))) ds ≤ Λ(t0, e), so e is at least the root of
+                    // Λ(t0, e) = ΔF_q (a later start only ends later)
+                    double arrival = adm > cap.wafer(t0) + spread ? capped.arrival(t0, adm, fLo) : Double.NEGATIVE_INFINITY;
                     int to = encode(cp);
-                    next[to] = Math.min(next[to], t0 + d);
+                    if (storage == null) {
+                        next[to] = Math.min(next[to], Math.max(t0 + d, arrival));
+                    } else {
+                        storedMoves(i, c, cp, flat, to, tau, next, d * (1 - 1e-12), arrival, clockGas, fLo, fHi,
+                                comps[q].rateConstant(Math.min(adm, hotCeilingK)) * (1 + 1e-12), clockColdFloor[0],
+                                endKin, dv, phiMemo);
+                    }
                 }
                 // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
                 int o = 0;
@@ -437,8 +520,159 @@ final class JointBound {
                 }
             }
         }
+        if (binding != null) {
+            binding[i] = coldVotes > hotVotes ? 1 : 0;
+        }
         return new Level(any, hottest);
     }
+
+    /** Whether at hot temperature t (just infeasible) the cold corner's margin is the smaller one. */
+    private boolean coldBinds(double t, int[] c, int[] cp, double clockFloor, double clockColdFloor) {
+        double[] floors = new double[k];
+        double[] coldFloors = new double[k];
+        floors[q] = clockFloor;
+        coldFloors[q] = clockColdFloor;
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            floors[j] = Math.min(cellF[o][c[o]], cellF[o][cp[o] + 1]);
+            coldFloors[j] = Math.min(coldLowF(o, c[o], cp[o]), hiColdF[o][cp[o] + 1]);
+        }
+        double hotK = Math.min(t, hotCeilingK);
+        for (int j = 0; j < k; j++) {
+            gen[j] = limits.gasifiable(j) * comps[j].rateConstant(hotK) * floors[j];
+            genCold[j] = limits.gasifiable(j) * comps[j].rateConstant(hotK - 2 * spread) * coldFloors[j];
+        }
+        return limits.monotoneMargin(hotK - 2 * spread, genCold) < limits.monotoneMargin(hotK, gen);
+    }
+
+    /** Quasi-steady only: after {@link #compute()}, per clock level the corner whose limits bound the leading node. */
+    int[] bindingCorners() {
+        return binding == null ? null : binding.clone();
+    }
+
+    /**
+     * The arrivals of one move with one corner's stored gas followed in bins (docs/model.md, "Lower bounds", 5):
+     * leaving with S ≥ s_m at time τ_m or later and arriving with S' ≤ s_{m'+1}, the move must keep
+     * d φ(F/d) ≤ s_{m'+1} − s_m − c (c the gas counted exactly: the clock's increment at the hot corner), which
+     * takes at least {@link StoredGas.Phi#leastDuration}; the move also takes at least its kinetic duration
+     * {@code d} and ends no sooner than {@code arrival}.
+     */
+    private void storedMoves(int i, int[] c, int[] cp, int from, int to, double[] tau, double[] next, double d,
+                             double arrival, double clockGas, double fLo, double fHi, double uMax, double clockColdFloor,
+                             double[] endKin, double[] dv, LevelMemo phiMemo) {
+        int nb = bins;
+        int first = -1;
+        int last = -1;
+        for (int m = 0; m < nb; m++) {
+            double t = tau[from * nb + m];
+            endKin[m] = Double.isFinite(t) ? Math.max(t + d, arrival) : Double.POSITIVE_INFINITY;
+            if (Double.isFinite(t)) {
+                last = m;
+                if (first < 0) {
+                    first = m;
+                }
+            }
+        }
+        if (first < 0) {
+            return;
+        }
+        boolean hotCorner = tracked[i] == 0;
+        // the gas weights a_j = n0_j × (least f_j) of the followed corner over the move, memoised by what they depend on
+        long key = hotCorner ? 1 : 2;
+        double[] a = new double[k];
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            int n = cells[o].length;
+            if (hotCorner) {
+                int e = cellF[o][c[o]] <= cellF[o][cp[o] + 1] ? c[o] : cp[o] + 1;
+                a[j] = limits.gasifiable(j) * cellF[o][e];
+                key = key * (n + 1) + e;
+            } else {
+                // the floor is f at the cold lower bound of the cell left, or at the cold upper bound of the top of the
+                // cell entered, whichever is smaller: 2n possible values
+                double fLoCold = coldLowF(o, c[o], cp[o]);
+                boolean fromLeft = fLoCold < hiColdF[o][cp[o] + 1];
+                a[j] = limits.gasifiable(j) * (fromLeft ? fLoCold : hiColdF[o][cp[o] + 1]);
+                int which = fromLeft ? c[o] : n + cp[o] + 1;
+                key = key * (2L * n + 2) + which;
+            }
+        }
+        double exact = 0;
+        if (hotCorner) {
+            exact = clockGas;   // the clock's own gas, counted exactly (its rate term is left out of φ)
+        } else {
+            a[q] = limits.gasifiable(q) * clockColdFloor;
+        }
+        final long memoKey = key * 0x9E3779B97F4A7C15L;
+        final double exactGas = exact;
+        // the least durations by bin difference with the rate count, memoised for the level (fLo, fHi, the clock's gas and
+        // the cap on u are the level's); the hot corner's φ depends on the cells only and is kept for every level
+        double[] base = phiMemo.dv.get(memoKey);
+        if (base == null) {
+            StoredGas.Phi phi = hotCorner ? hotPhis.computeIfAbsent(memoKey, z -> storage.hot.phi(a, null))
+                    : storage.cold.phi(a, null);
+            base = new double[2 * nb - 1];
+            for (int diff = -(nb - 1); diff <= nb - 1; diff++) {
+                base[diff + nb - 1] = phi.leastDuration((1 - diff) * binWidth - exactGas, fLo, fHi, uMax) * (1 - 1e-12);
+            }
+            phiMemo.dv.put(memoKey, base);
+        }
+        // a second count of the others' gas: at the hot corner their least increments from the cells left and entered; at
+        // the cold corner their hot reduced time θ_j ≥ θ_lo paid up front with λ_j = a_j/ρ_j(T_top) (any λ ≥ 0 is valid);
+        // with nothing to pay it is the weaker of the two and left out
+        double paid = 0;
+        double[] lambda = hotCorner ? null : new double[k];
+        for (int o = 0; o < others.length; o++) {
+            int j = others[o];
+            if (hotCorner) {
+                paid += limits.gasifiable(j) * Math.max(0, cells[o][cp[o]] - cells[o][c[o] + 1]);
+            } else {
+                lambda[j] = a[j] / rhoColdAbove(j, hotCeilingK);
+                paid += lambda[j] * Math.max(0, cellLo[o][cp[o]] - cellHi[o][c[o] + 1]);
+            }
+        }
+        if (paid > 0) {
+            StoredGas.Phi second = hotCorner ? hotPhis.computeIfAbsent(0L, z -> storage.hot.phi(new double[k], null))
+                    : phiMemo.phi.computeIfAbsent(memoKey, z -> storage.cold.phi(a, lambda));
+            for (int diff = first - (nb - 1); diff <= last; diff++) {
+                double room = (1 - diff) * binWidth - exact;
+                dv[diff + nb - 1] = Math.max(base[diff + nb - 1],
+                        second.leastDuration(room - paid, fLo, fHi, uMax) * (1 - 1e-12));
+            }
+        } else {
+            System.arraycopy(base, 0, dv, 0, base.length);
+        }
+        // a bin is dominated by a lower one that is no later (less gas stored, so more room, and an earlier start)
+        int live = 0;
+        double earliest = Double.POSITIVE_INFINITY;
+        for (int m = first; m <= last; m++) {
+            double t = tau[from * nb + m];
+            if (t < earliest) {
+                earliest = t;
+                liveBins[live++] = m;
+            }
+        }
+        for (int mp = 0; mp < nb; mp++) {
+            double e = Double.POSITIVE_INFINITY;
+            for (int l = 0; l < live; l++) {
+                int m = liveBins[l];
+                e = Math.min(e, Math.max(endKin[m], tau[from * nb + m] + dv[m - mp + nb - 1]));
+            }
+            int idx = to * nb + mp;
+            next[idx] = Math.min(next[idx], e);
+        }
+    }
+
+    /** Per level: the least durations by bin difference, and the cold corner's second φ, by gas weights. */
+    private static final class LevelMemo {
+        final java.util.HashMap<Long, double[]> dv = new java.util.HashMap<>();
+        final java.util.HashMap<Long, StoredGas.Phi> phi = new java.util.HashMap<>();
+    }
+
+    /** Scratch: the bins of a node not dominated by a lower one. */
+    private int[] liveBins;
+    /** The hot corner's φ by gas weights (they depend on the cells only), for every level. */
+    private final java.util.HashMap<Long, StoredGas.Phi> hotPhis = new java.util.HashMap<>();
 
     private int encode(int[] idx) {
         int f = 0;
@@ -618,21 +852,6 @@ final class JointBound {
         return rt[j].conversionAtLeast(coldLeast(j, v));
     }
 
-    /**
-     * A lower bound on the duration of the move (i, c) → (i+1, cp) started at t0 or later, given the highest
-     * admissible hot-corner temperature of its box; −1 if impossible.
-     */
-    private double moveTime(double adm, int[] c, int[] cp, double t0, double fLo, double fHi) {
-        // Jensen's bound with the region's top temperature (the cap left out) ...
-        double d = duration(c, cp, Math.min(adm, hotCeilingK), fLo, fHi);
-        if (d < 0 || adm <= cap.wafer(t0) + spread) {
-            return d;
-        }
-        // ... and, while the cap still rises, the clock's own reduced time: a move that starts at t ≥ t0 and ends at e
-        // gains ΔF_q ≤ ∫_t^e k_q(min(T_top, cap(s))) ds ≤ Λ(t0, e), so e is at least the root of Λ(t0, e) = ΔF_q
-        return Math.max(d, capped.arrival(t0, adm, fLo) - t0);
-    }
-
     private double duration(int[] c, int[] cp, double top, double fLo, double fHi) {
         double tStar = top;
         double eq = comps[q].activationEnergyJPerMol();
@@ -668,6 +887,15 @@ final class JointBound {
      */
     private double admissible(int part, int[] c, int[] cp, double clockFloor, double clockColdFloor, double[] rhoNow,
                               java.util.HashMap<Long, Double> memo, java.util.HashMap<Long, Double> memoPrev) {
+        if (storage != null) {
+            // stored gas: the pressure limits enter through storage and venting; here only what holds with no gas
+            if (Double.isNaN(hardK)) {
+                double t = LowerBound.highestFeasible(temp -> margin(temp, new double[k], new double[k]), hotCeilingK,
+                        floorK, Double.NaN);
+                hardK = Double.isNaN(t) ? floorK : t;
+            }
+            return hardK;
+        }
         // the floors depend on the grid point that gives the hot corner's least f, on whether the cold corner's least f is
         // at its lower end (then on the cell left) and on the cell entered
         long key = 0;

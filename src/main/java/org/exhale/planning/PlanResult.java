@@ -42,6 +42,12 @@ public record PlanResult(Recipe recipe, BakeResult verification, double duration
         return rideS > 0 && Double.isFinite(rideS) ? durationS / rideS : Double.NaN;
     }
 
+    /** The same outcome with another lower bound (the planner's stored-gas bound arrives after its search). */
+    public PlanResult withLowerBound(LowerBound.Result bound) {
+        return new PlanResult(recipe, verification, durationS, totalS, bound, boundRigorous, verified, binding, evaluations,
+                notes, infeasibility, rideS);
+    }
+
     public boolean feasible() {
         return infeasibility == null && recipe != null;
     }

@@ -64,8 +64,23 @@ public final class Planner {
     }
 
     public static PlanResult plan(BakeCase bake, Tool tool) {
-        return new Planner(bake, tool).run();
+        Planner p = new Planner(bake, tool);
+        PlanResult r = p.run();
+        if (p.storedBound == null) {
+            return r;
+        }
+        try {
+            return r.withLowerBound(p.storedBound.join());
+        } catch (java.util.concurrent.CompletionException e) {
+            throw e.getCause() instanceof RuntimeException re ? re : e;
+        }
     }
+
+    /**
+     * The stored-gas bound, computed on its own thread beside the search when the gas is stored (it takes about as long
+     * as the search; the search itself uses only the fast bounds, so the plan does not depend on it).
+     */
+    private java.util.concurrent.CompletableFuture<LowerBound.Result> storedBound;
 
     /** A recipe shape: knots (duration of the step into it [s], setpoint at its end [K]), then a hold of given length. */
     record Shape(double[] durations, double[] temps, double holdS) {
@@ -73,6 +88,15 @@ public final class Planner {
 
     private PlanResult run() {
         LowerBound.Result bound = LowerBound.compute(bake, tool, quasiSteady(), false);
+        if (!quasiSteady()) {
+            LowerBound.Result fast = bound;
+            storedBound = java.util.concurrent.CompletableFuture.supplyAsync(() -> LowerBound.withStoredGas(fast, bake, tool),
+                    task -> {
+                        Thread t = new Thread(task, "exhale-stored-gas-bound");
+                        t.setDaemon(true);
+                        t.start();
+                    });
+        }
         boolean rigorous = bound.rigorous();
         if (capK <= startK) {
             return infeasible(bound, rigorous, "ceiling", "the ceiling less the spread is not above the start temperature",

@@ -126,6 +126,27 @@ final class VentBound {
         return u;
     }
 
+    /** The highest Δp ≤ max_pressure at which the monotone limits hold at T (+∞ when none limits it). */
+    static double admissiblePressure(InstantLimits limits, double temperatureK, double maxPressurePa) {
+        if (limits.monotoneMarginAtPressure(temperatureK, 0) < 1) {
+            return 0;
+        }
+        double hi = Double.isFinite(maxPressurePa) ? maxPressurePa * 1.000001 : 1e9;
+        if (limits.monotoneMarginAtPressure(temperatureK, hi) >= 1) {
+            return Double.isFinite(maxPressurePa) ? hi : Double.POSITIVE_INFINITY;
+        }
+        double lo = 0;
+        while (hi - lo > 1e-6 * hi) {
+            double mid = 0.5 * (lo + hi);
+            if (limits.monotoneMarginAtPressure(temperatureK, mid) >= 1) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return hi;
+    }
+
     /** The vent's capacity on a temperature grid: interval bounds of the permeance, viscous flow and P_adm. */
     private static final class Vent {
         final double[] temps;
@@ -198,27 +219,6 @@ final class VentBound {
         int interval(double temperatureK) {
             int i = (int) Math.ceil((temperatureK - LOWEST_K) / GRID_K) - 1;
             return Math.max(0, Math.min(i, kUp.length - 1));
-        }
-
-        /** The highest Δp ≤ max_pressure at which the monotone limits hold at T (+∞ when none limits it). */
-        private static double admissiblePressure(InstantLimits limits, double temperatureK, double maxPressurePa) {
-            if (limits.monotoneMarginAtPressure(temperatureK, 0) < 1) {
-                return 0;
-            }
-            double hi = Double.isFinite(maxPressurePa) ? maxPressurePa * 1.000001 : 1e9;
-            if (limits.monotoneMarginAtPressure(temperatureK, hi) >= 1) {
-                return Double.isFinite(maxPressurePa) ? hi : Double.POSITIVE_INFINITY;
-            }
-            double lo = 0;
-            while (hi - lo > 1e-6 * hi) {
-                double mid = 0.5 * (lo + hi);
-                if (limits.monotoneMarginAtPressure(temperatureK, mid) >= 1) {
-                    lo = mid;
-                } else {
-                    hi = mid;
-                }
-            }
-            return hi;
         }
     }
 }
