@@ -5,7 +5,8 @@ import org.exhale.simulation.InstantLimits;
 
 /**
  * The lower bounds on the bake time of MODEL.md §9, each labelled with whether it is rigorous for
- * the case's gas regime. Four are computed (proofs in docs/model.md, "Lower bounds"):
+ * the case's gas regime. Four are computed, and a fifth where the gas is stored (proofs in docs/model.md,
+ * "Lower bounds"):
  * <ul>
  *   <li><b>ceiling</b>: the cold corner under the lagged temperature cap, ignoring every other limit;
  *       rigorous in any regime ({@link VentBound});</li>
@@ -19,8 +20,12 @@ import org.exhale.simulation.InstantLimits;
  *       admissible temperature at the conversions' upper bounds); rigorous where the gas is
  *       quasi-steady, otherwise an estimate ({@link EnvelopeBound}). The tight one for a single
  *       component: it keeps the cold corner's lag behind the hot one and the ramp rate.</li>
+ *   <li><b>joint_stored</b> (stored gas only): the joint programme with the pressure limits entering through one
+ *       corner's stored gas, followed in bins, and what its cap can vent; rigorous in any regime
+ *       ({@link JointBound} with {@link StoredGas}). The planner computes it on its own thread
+ *       ({@link #withStoredGas}).</li>
  * </ul>
- * The reported bound is the largest rigorous one. Every discretisation error of the four lowers
+ * The reported bound is the largest rigorous one. Every discretisation error of the five lowers
  * them. The one premise not proved by the code is that at fixed conversions the admissible
  * temperatures form an interval below the highest one found (the bisection of
  * {@link #highestFeasible}); docs/model.md says when that holds.
