@@ -131,8 +131,8 @@ final class BenchCommand implements Callable<Integer> {
      */
     private void bounds(List<Path> files) {
         System.out.println();
-        System.out.printf(Locale.ROOT, "%-46s %-12s %9s %9s %9s %9s %9s %-14s %9s%n", "lower bounds (min; * = estimate)", "gas",
-                "ceiling", "vent", "joint", "envelope", "bound", "bound from", "ms");
+        System.out.printf(Locale.ROOT, "%-46s %-12s %9s %9s %9s %9s %9s %9s %-14s %9s%n", "lower bounds (min; * = estimate)", "gas",
+                "ceiling", "vent", "joint", "envelope", "jnt-stor", "bound", "bound from", "ms");
         for (Path f : files) {
             if (!java.nio.file.Files.isRegularFile(f)) {
                 System.out.println(f + ": missing, skipped");
@@ -150,8 +150,9 @@ final class BenchCommand implements Callable<Integer> {
             }
             Arrays.sort(ms);
             String name = f.getFileName().toString().replace(".yaml", "");
-            System.out.printf(Locale.ROOT, "%-46s %-12s %9s %9s %9s %9s %9s %-14s %9.1f%n", name, qs ? "quasi-steady" : "stored",
+            System.out.printf(Locale.ROOT, "%-46s %-12s %9s %9s %9s %9s %9s %9s %-14s %9.1f%n", name, qs ? "quasi-steady" : "stored",
                     cell(r.estimate("ceiling")), cell(r.estimate("vent_capacity")), cell(r.estimate("joint")), cell(r.estimate("envelope")),
+                    cell(r.estimate("joint_stored")),
                     String.format(Locale.ROOT, "%.1f", r.boundS() / 60), PlanCommand.boundKind(r), quantile(ms, 0.5));
         }
     }
