@@ -652,7 +652,16 @@ final class JointBound {
                 liveBins[live++] = m;
             }
         }
-        for (int mp = 0; mp < nb; mp++) {
+        // the stored gas at the end of the move is at most what the cavity holds at the move's highest conversions (the
+        // cold corner's conversions never exceed the hot one's)
+        double[] alphaHi = new double[k];
+        java.util.Arrays.fill(alphaHi, 1);
+        alphaHi[q] = levels[i + 1];
+        for (int o = 0; o < others.length; o++) {
+            alphaHi[others[o]] = cells[o][cp[o] + 1];
+        }
+        int top = (int) Math.min(nb - 1, Math.floor(storage.capacity(alphaHi) / binWidth));
+        for (int mp = 0; mp <= top; mp++) {
             double e = Double.POSITIVE_INFINITY;
             for (int l = 0; l < live; l++) {
                 int m = liveBins[l];

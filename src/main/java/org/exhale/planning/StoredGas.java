@@ -34,6 +34,12 @@ final class StoredGas {
 
     /** Most moles a corner's cavity can hold within the limits [mol/m²]. */
     final double maxStoredMolPerM2;
+    /** Most moles per storage volume, max_T P_adm(T)/(RT) [mol/m³]; the volume's fixed part and height [m]. */
+    private final double storedPerVolume;
+    private final double fixedVolumeM;
+    private final double heightM;
+    /** Per component, the storage volume freed per unit conversion, over the height: w_j (1 − c_j). */
+    private final double[] freedWeight;
     /** Whether the admissible pressure is finite at every temperature (else venting bounds nothing). */
     final boolean finite;
     final Corner hot;
@@ -50,10 +56,14 @@ final class StoredGas {
         double d = bake.cavity().heightM();
         double fixed = bake.polymer().freeVolumeFraction() * d + bake.cap().porosity() * bake.cap().thicknessM() / 2;
         double freedMax = 0;
+        freedWeight = new double[k];
         for (int j = 0; j < k; j++) {
             Component c = bake.polymer().component(j);
-            freedMax += c.fraction() * (1 - c.charFraction());
+            freedWeight[j] = c.fraction() * (1 - c.charFraction());
+            freedMax += freedWeight[j];
         }
+        fixedVolumeM = fixed;
+        heightM = d;
         double vMax = fixed + d * freedMax;
         // the admissible pressure on a corner-temperature grid from LOWEST_K to the top
         int n = (int) Math.ceil((topK - VentBound.LOWEST_K) / GRID_K) + 1;
@@ -85,11 +95,24 @@ final class StoredGas {
             double f = p > 0 ? kmax * (1 + 1e-9) * p + transport.viscousConductance(lo, p) * p : 0;
             jMax = Math.max(jMax, f);
             jUp[i] = jMax;   // a non-decreasing upper bound of the flux on [LOWEST_K, hi]
-            stored = Math.max(stored, p * vMax / (R * lo));
+            stored = Math.max(stored, p / (R * lo));
         }
-        maxStoredMolPerM2 = stored * (1 + 1e-9);
+        storedPerVolume = stored * (1 + 1e-9);
+        maxStoredMolPerM2 = storedPerVolume * vMax * (1 + 1e-12);
         hot = new Corner(comps, q, temps, jUp, 0, topK);
         cold = new Corner(comps, q, temps, jUp, offset, topK);
+    }
+
+    /**
+     * Most moles a corner's cavity can hold while its conversions are at most {@code alphaHi} (the storage volume grows
+     * as the polymer goes) [mol/m²].
+     */
+    double capacity(double[] alphaHi) {
+        double v = fixedVolumeM;
+        for (int j = 0; j < alphaHi.length; j++) {
+            v += heightM * freedWeight[j] * Math.min(1, Math.max(0, alphaHi[j]));
+        }
+        return storedPerVolume * v * (1 + 1e-12);
     }
 
     /**
