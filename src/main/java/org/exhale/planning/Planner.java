@@ -282,7 +282,14 @@ public final class Planner {
         }
         Rider rider = new Rider(bake, tool, capK, regime, gasScale);
         this.rider = rider;
-        double boundS = bound.boundS();
+        // the control interval scales with the bake's time scale, taken from the fast bounds only (ceiling, vent capacity)
+        // so that better bounds do not move the plan
+        double boundS = 0;
+        for (LowerBound.Estimate e : bound.estimates()) {
+            if (e.name().equals("ceiling") || e.name().equals("vent_capacity")) {
+                boundS = Math.max(boundS, e.seconds());
+            }
+        }
         double control = Double.isFinite(boundS) && boundS > 0 ? Math.min(Math.max(boundS / 150, 2), 300) : 30;
         Rider.Ride ride = rider.ride(control, LONG_HOLD_S);
         if (Double.isNaN(ride.timeToTargetS())) {
