@@ -394,6 +394,8 @@ final class StoredGas {
             return Corner.interpolate(x, y, v);
         }
 
+        /** Where the last search ended. */
+        private int hint;
         /** The last cap seen, the last vertex at or below it, and φ there (the bound asks with one cap per level). */
         private double capSeen = Double.NaN;
         private int capIndex;
@@ -427,12 +429,36 @@ final class StoredGas {
             if (capValue <= r * cap) {
                 return cap;
             }
-            // vertices up to the cap: the last with φ ≤ r x (vertex 0, at x = 0 where φ(0) < 0, always qualifies)
-            int lo = 0;
-            int hi = capIndex;
-            if (hi > 0 && y[hi] <= r * x[hi]) {
-                lo = hi;
+            // vertices up to the cap: the last with φ ≤ r x (vertex 0, at x = 0 where φ(0) < 0, always qualifies); the
+            // search gallops from the last answer (successive questions differ little)
+            int lo;
+            int hi;
+            int cap0 = capIndex;
+            if (cap0 > 0 && y[cap0] <= r * x[cap0]) {
+                lo = cap0;
             } else {
+                int h = Math.min(Math.max(hint, 0), cap0);
+                if (h == 0 || y[h] <= r * x[h]) {
+                    // the answer is at or above h: gallop up
+                    lo = h;
+                    int step = 1;
+                    hi = Math.min(h + step, cap0);
+                    while (hi < cap0 && y[hi] <= r * x[hi]) {
+                        lo = hi;
+                        step *= 2;
+                        hi = Math.min(h + step, cap0);
+                    }
+                } else {
+                    // below h: gallop down
+                    hi = h;
+                    int step = 1;
+                    lo = Math.max(h - step, 0);
+                    while (lo > 0 && !(y[lo] <= r * x[lo])) {
+                        hi = lo;
+                        step *= 2;
+                        lo = Math.max(h - step, 0);
+                    }
+                }
                 while (hi - lo > 1) {
                     int mid = (lo + hi) >>> 1;
                     if (y[mid] <= r * x[mid]) {
@@ -441,6 +467,7 @@ final class StoredGas {
                         hi = mid;
                     }
                 }
+                hint = lo;
             }
             double x1;
             double y1;
