@@ -198,9 +198,7 @@ public final class CapStructure {
             mCentre = (1 + film.poisson()) * f[DiscFvkTable.CENTRE_MOMENT];
             // the strip's distribution of M across the span at the uniform-force model's force
             double sModel = s0 + f[DiscFvkTable.MODEL_STRETCH];
-            double fe = MembraneFunctions.stripEdge(sModel);
-            ratioSquare = sModel > MembraneFunctions.STRIP_BUCKLING_S
-                    ? MembraneFunctions.stripBendingEnergy(sModel) / (2 * fe * fe) : 1;
+            ratioSquare = sModel > MembraneFunctions.STRIP_BUCKLING_S ? MembraneFunctions.stripBendingShare(sModel) : 1;
         } else {
             delta = h * q * MembraneFunctions.stripDeflection(s);
             double fe = MembraneFunctions.stripEdge(s);

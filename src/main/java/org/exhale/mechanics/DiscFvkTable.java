@@ -6,6 +6,7 @@ import java.io.InputStream;
 import java.io.InputStreamReader;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
+import java.util.concurrent.atomic.AtomicReferenceArray;
 import java.util.zip.GZIPInputStream;
 
 /**
@@ -69,29 +70,21 @@ final class DiscFvkTable {
 
     private static volatile float[] shared;
 
-    private final float[] table;
     private final double nu;
     /** The Poisson's ratio the table is read at (ν clamped to [0, 0.5]). */
     private final double tableNu;
-    /** First of the four ν slices and their Lagrange weights. */
-    private final int nuStart;
-    private final double wn0;
-    private final double wn1;
-    private final double wn2;
-    private final double wn3;
+    /**
+     * The table's rows interpolated to this ν (cubic in ν), each [column][part], built on first use (a bake touches
+     * a few rows: the pre-force follows the temperature) and then only read; racing threads may each build a row,
+     * the array's volatile write publishes a complete one.
+     */
+    private final AtomicReferenceArray<float[]> rows = new AtomicReferenceArray<>(NY);
 
     /** The table for a film of Poisson's ratio ν. */
     DiscFvkTable(double poisson) {
-        this.table = load();
+        load();
         this.nu = poisson;
         this.tableNu = Math.min(Math.max(poisson, 0), (NNU - 1) * NU_STEP);
-        double fn = tableNu / NU_STEP;
-        nuStart = start(fn, NNU);
-        double t = fn - nuStart - 1;
-        wn0 = weight0(t);
-        wn1 = weight1(t);
-        wn2 = weight2(t);
-        wn3 = weight3(t);
     }
 
     static double qAt(int i) {
@@ -151,9 +144,12 @@ final class DiscFvkTable {
         double qc = Math.exp(X_MIN + cx * X_STEP);
         double nc = -BUCKLING * Math.expm1(Y_MIN + cy * Y_STEP);
         interpolate(cx, cy, 0, PARTS, out);
-        double s = CapStructure.solveTension(true, 6 * (1 + nu), n0, bigQ);
-        double sc = CapStructure.solveTension(true, 6 * (1 + tableNu), nc, qc);
-        double stretch = MembraneFunctions.discStretch(s) / MembraneFunctions.discStretch(sc);
+        double gain = 6 * (1 + nu);
+        double gainAt = 6 * (1 + tableNu);
+        double s = CapStructure.solveTension(true, gain, n0, bigQ);
+        double sc = CapStructure.solveTension(true, gainAt, nc, qc);
+        // the model's stretch s − n0 = c Q² F(s), c = 6(1+ν): its ratio, without the Q² the parts are divided by
+        double stretch = gain * MembraneFunctions.discStretch(s) / (gainAt * MembraneFunctions.discStretch(sc));
         double q2 = bigQ * bigQ;
         out[EDGE_STRETCH] = Math.exp(out[EDGE_STRETCH]) * q2 * stretch;
         out[CENTRE_STRETCH] = Math.exp(out[CENTRE_STRETCH]) * q2 * stretch;
@@ -163,7 +159,7 @@ final class DiscFvkTable {
                 * Math.abs(MembraneFunctions.discCentre(s) / MembraneFunctions.discCentre(sc));
         out[DEFLECTION] = Math.exp(out[DEFLECTION]) * bigQ
                 * MembraneFunctions.discDeflection(s) / MembraneFunctions.discDeflection(sc);
-        out[MODEL_STRETCH] = 6 * (1 + nu) * q2 * MembraneFunctions.discStretch(s);
+        out[MODEL_STRETCH] = gain * q2 * MembraneFunctions.discStretch(s);
     }
 
     /** The tabulated logarithms of parts [from, to) at fractional node positions fx, fy (inside the grid). */
@@ -176,25 +172,47 @@ final class DiscFvkTable {
         double ax1 = weight1(tx);
         double ax2 = weight2(tx);
         double ax3 = weight3(tx);
-        double ay0 = weight0(ty);
-        double ay1 = weight1(ty);
-        double ay2 = weight2(ty);
-        double ay3 = weight3(ty);
-        float[] t = table;
         for (int p = from; p < to; p++) {
             g[p] = 0;
         }
-        for (int kk = 0; kk < 4; kk++) {
-            double wn = kk == 0 ? wn0 : kk == 1 ? wn1 : kk == 2 ? wn2 : wn3;
-            for (int jj = 0; jj < 4; jj++) {
-                double w = wn * (jj == 0 ? ay0 : jj == 1 ? ay1 : jj == 2 ? ay2 : ay3);
-                int b = index(nuStart + kk, iy + jj, ix, 0);
-                for (int p = from; p < to; p++) {
-                    g[p] += w * (ax0 * t[b + p] + ax1 * t[b + PARTS + p] + ax2 * t[b + 2 * PARTS + p]
-                            + ax3 * t[b + 3 * PARTS + p]);
-                }
+        for (int jj = 0; jj < 4; jj++) {
+            double w = jj == 0 ? weight0(ty) : jj == 1 ? weight1(ty) : jj == 2 ? weight2(ty) : weight3(ty);
+            float[] t = row(iy + jj);
+            int b = ix * PARTS;
+            for (int p = from; p < to; p++) {
+                g[p] += w * (ax0 * t[b + p] + ax1 * t[b + PARTS + p] + ax2 * t[b + 2 * PARTS + p] + ax3 * t[b + 3 * PARTS + p]);
             }
         }
+    }
+
+    /** Row j of the table at this ν. */
+    private float[] row(int j) {
+        float[] r = rows.get(j);
+        if (r == null) {
+            r = interpolateNu(load(), tableNu, j);
+            rows.set(j, r);
+        }
+        return r;
+    }
+
+    /** Row j of the table at Poisson's ratio ν in [0, 0.5], four-point Lagrange across the ν slices. */
+    private static float[] interpolateNu(float[] table, double nu, int j) {
+        double fn = nu / NU_STEP;
+        int k = start(fn, NNU);
+        double t = fn - k - 1;
+        double w0 = weight0(t);
+        double w1 = weight1(t);
+        double w2 = weight2(t);
+        double w3 = weight3(t);
+        int n = NX * PARTS;
+        int slice = NY * n;
+        int at = k * slice + j * n;
+        float[] out = new float[n];
+        for (int m = 0; m < n; m++) {
+            out[m] = (float) (w0 * table[at + m] + w1 * table[at + slice + m] + w2 * table[at + 2 * slice + m]
+                    + w3 * table[at + 3 * slice + m]);
+        }
+        return out;
     }
 
     /** First node of the four-point stencil around fractional position f on n nodes. */
