@@ -478,7 +478,7 @@ class FoepplVonKarmanTest {
         // coordinate and between two ν slices. Cells drawn at random (seeded). Up to n0 ≈ 100 and Q ≈ 1e3 (the
         // shooting's reach: beyond it the centre-to-edge growth e^{√n} of the solution defeats the shooting) against
         // the independent shooting solution (derived, no published source); over the whole table (Q 1e-3 … 1e8, n0 up
-        // to 1.3e5) against the finite-difference solver solved afresh at the cell's centre (the table's method, but
+        // to 1e5) against the finite-difference solver solved afresh at the cell's centre (the table's method, but
         // not its nodes: this measures the interpolation; the solver itself is checked against the shooting above).
         // Measured largest differences on these cells 4.9e-5 (shooting) and 8.7e-5 (finite differences); a one-off run
         // over every cell of the ν = 0.3 slice (finite differences at 22 410 points on a grid of half the table's steps)
@@ -490,7 +490,7 @@ class FoepplVonKarmanTest {
         for (int trial = 0; trial < 28; trial++) {
             boolean shooting = trial < 16;
             int i = random.nextInt(shooting ? 56 : DiscFvkTable.NX - 1);        // Q up to 1e3 (shooting) or 1e8
-            int j = random.nextInt(shooting ? 34 : DiscFvkTable.NY - 1);         // n0 up to 100 (shooting) or 1.3e5
+            int j = random.nextInt(shooting ? 34 : DiscFvkTable.NY - 1);         // n0 up to 100 (shooting) or 1e5
             int k = random.nextInt(DiscFvkTable.NNU - 1);
             double bigQ = Math.exp(DiscFvkTable.X_MIN + (i + 0.5) * DiscFvkTable.X_STEP);
             double n0 = -DiscFvkTable.BUCKLING * Math.expm1(DiscFvkTable.Y_MIN + (j + 0.5) * DiscFvkTable.Y_STEP);
