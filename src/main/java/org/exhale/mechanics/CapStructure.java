@@ -5,7 +5,8 @@ import org.hipparchus.util.FastMath;
 /**
  * The cap film over its span as a clamped plate carrying in-plane force and pressure (Föppl–von
  * Kármán): stresses, deflection and fracture driving forces at a temperature and an excess
- * pressure (inside minus outside). Immutable and allocation-free apart from the result record.
+ * pressure (inside minus outside). Immutable and allocation-free apart from the result record (a disc
+ * interpolates its table to the film's ν row by row on first use; safe to share between threads).
  *
  * <h2>Relations (SI units; Ē = E/(1−ν²), D = Ē h³/12, a = w/2 the half-span or radius)</h2>
  * <ul>

@@ -1,17 +1,16 @@
 package org.exhale.mechanics;
 
+import java.io.BufferedOutputStream;
+import java.io.DataOutputStream;
 import java.io.IOException;
-import java.io.OutputStreamWriter;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.zip.GZIPOutputStream;
 
 /**
- * Regenerates the bundled disc table (src/main/resources/org/exhale/mechanics/disc-fvk-response.tsv.gz,
- * {@link DiscFvkTable}) from {@link AxisymmetricFvk}; see DEVELOPERS.md for the command. About ten
+ * Regenerates the bundled disc table (src/main/resources/org/exhale/mechanics/disc-fvk-response.bin.gz,
+ * {@link DiscFvkTable}) from {@link AxisymmetricFvk}; see DEVELOPERS.md for the command. About seven
  * minutes on one core.
  *
  * <p>For each Poisson's ratio and pre-force row the load is continued upward through the Q nodes
@@ -29,22 +28,20 @@ public final class DiscFvkTableWriter {
         Files.createDirectories(out.getParent());
         Path tmp = out.resolveSibling(out.getFileName() + ".tmp");
         long t0 = System.nanoTime();
-        try (Writer w = new OutputStreamWriter(new GZIPOutputStream(Files.newOutputStream(tmp)), StandardCharsets.US_ASCII)) {
-            w.write("# exhale: axisymmetric FvK response of the clamped disc (DiscFvkTable), natural logarithms\n");
-            w.write(String.format(Locale.ROOT, "# nu 0..%.1f step %.1f; y = ln(1 + n0/j11^2) from %.6f step %.2f (%d); "
-                            + "x = ln Q from %.6f step %.2f (%d); parts: ln of edge stretch/Q^2, centre stretch/Q^2, "
-                            + "edge moment/Q, centre moment/Q, deflection/Q, uniform-force model stretch/Q^2%n",
-                    (DiscFvkTable.NNU - 1) * DiscFvkTable.NU_STEP, DiscFvkTable.NU_STEP, DiscFvkTable.Y_MIN,
-                    DiscFvkTable.Y_STEP, DiscFvkTable.NY, DiscFvkTable.X_MIN, DiscFvkTable.X_STEP, DiscFvkTable.NX));
+        try (DataOutputStream w = new DataOutputStream(new BufferedOutputStream(new GZIPOutputStream(Files.newOutputStream(tmp))))) {
+            for (int v : DiscFvkTable.headerInts()) {
+                w.writeInt(v);
+            }
+            for (double v : DiscFvkTable.headerDoubles()) {
+                w.writeDouble(v);
+            }
             for (int k = 0; k < DiscFvkTable.NNU; k++) {
                 double nu = k * DiscFvkTable.NU_STEP;
                 for (int j = 0; j < DiscFvkTable.NY; j++) {
                     for (double[] node : row(j, nu)) {
-                        StringBuilder sb = new StringBuilder();
-                        for (int p = 0; p < node.length; p++) {
-                            sb.append(p == 0 ? "" : "\t").append(String.format(Locale.ROOT, "%.6f", node[p]));
+                        for (double v : node) {
+                            w.writeFloat((float) v);
                         }
-                        w.write(sb.append('\n').toString());
                     }
                 }
                 System.out.printf(Locale.ROOT, "nu %.1f done, %.0f s%n", nu, (System.nanoTime() - t0) / 1e9);
