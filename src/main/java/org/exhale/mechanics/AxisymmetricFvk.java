@@ -3,7 +3,7 @@ package org.exhale.mechanics;
 /**
  * Numerical solution of the axisymmetric Föppl–von Kármán equations of a clamped circular plate
  * under a uniform pressure and a uniform in-plane pre-force, by finite differences and Newton's
- * method. It is the source of the disc correction table ({@link DiscCorrection}); it is too slow to
+ * method. It is the source of the disc response table ({@link DiscFvkTable}); it is too slow to
  * call at every step of a bake, and the tests check it against an independent shooting solution.
  *
  * <p>Dimensionless variables: ρ = r/a, Φ = φ a/h (φ the slope), χ = ρ (n_r − n0) with n = N a²/D the
@@ -22,10 +22,15 @@ package org.exhale.mechanics;
 final class AxisymmetricFvk {
     private static final double LAMBDA = 0.9;
 
-    /** Solution in units of D/(a² h) (face stresses, membrane stresses n) and h (deflection). */
+    /**
+     * Solution in units of D/(a² h) (face stresses, membrane stresses n) and h (deflection). The
+     * stretches are the membrane forces less the pre-force, n − n0, taken from χ directly (so they
+     * keep their digits where they are small beside n0).
+     */
     record Solution(double edgeMembrane, double centreMembrane, double edgeSlopeDerivative,
                     double centreSlopeDerivative, double deflection, double edgeFaceStress,
-                    double centreFaceStress, double largestHoopMembrane) {
+                    double centreFaceStress, double largestHoopMembrane, double edgeStretch,
+                    double centreStretch) {
     }
 
     private final int n;
@@ -138,7 +143,7 @@ final class AxisymmetricFvk {
             hoop = Math.max(hoop, n0 + (chi[i + 1] - chi[i - 1]) / (2 * d * g1[i]));
         }
         return new Solution(nEdge, nCentre, dPhiEdge, dPhiCentre, delta,
-                nEdge + 6 * Math.abs(dPhiEdge), nCentre + 6 * (1 + nu) * Math.abs(dPhiCentre), hoop);
+                nEdge + 6 * Math.abs(dPhiEdge), nCentre + 6 * (1 + nu) * Math.abs(dPhiCentre), hoop, chi[n], dChiCentre);
     }
 
     /** Residuals and the block-tridiagonal Jacobian; returns the largest residual. */
@@ -260,7 +265,9 @@ final class AxisymmetricFvk {
                 rich(fine.deflection(), coarse.deflection()),
                 rich(fine.edgeFaceStress(), coarse.edgeFaceStress()),
                 rich(fine.centreFaceStress(), coarse.centreFaceStress()),
-                rich(fine.largestHoopMembrane(), coarse.largestHoopMembrane()));
+                rich(fine.largestHoopMembrane(), coarse.largestHoopMembrane()),
+                rich(fine.edgeStretch(), coarse.edgeStretch()),
+                rich(fine.centreStretch(), coarse.centreStretch()));
     }
 
     /** Continuation in the load Q_k = Q (k/steps)³ from zero. */

@@ -190,6 +190,33 @@ final class MembraneFunctions {
         return (v * v * (ct * ct + 1) + v * ct - 2) / (s * s);
     }
 
+    /**
+     * fB/(2 fE²): the mean square of the strip's moment across the span over the square of its edge moment,
+     * for s above the strip's buckling load (one hyperbolic or circular function for both; the disc's crack-along-
+     * the-span estimate calls it at every step, so coth takes the JDK's exp, an intrinsic, rather than FastMath's).
+     */
+    static double stripBendingShare(double s) {
+        if (Math.abs(s) <= SERIES_LIMIT) {
+            double fe = poly(FE, s);
+            return poly(FB, s) / (2 * fe * fe);
+        }
+        double fe;
+        double fb;
+        if (s > 0) {
+            double u = Math.sqrt(s);
+            double e = Math.exp(-2 * u);
+            double c = (1 + e) / (1 - e);
+            fe = (u * c - 1) / s;
+            fb = (s * (c * c - 1) + u * c - 2) / (s * s);
+        } else {
+            double v = Math.sqrt(-s);
+            double ct = 1 / FastMath.tan(v);
+            fe = (1 - v * ct) / (v * v);
+            fb = (v * v * (ct * ct + 1) + v * ct - 2) / (s * s);
+        }
+        return fb / (2 * fe * fe);
+    }
+
     // ---- disc --------------------------------------------------------------------------------
 
     static double discEdge(double s) {

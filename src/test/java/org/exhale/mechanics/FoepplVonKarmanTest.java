@@ -395,16 +395,168 @@ class FoepplVonKarmanTest {
 
     @Test
     void bundledTableMatchesItsGenerator() {
-        // Regression of the bundled resource against its generator at a few nodes (a stale table fails here).
-        double[] out = new double[DiscCorrection.PARTS];
-        int[][] nodes = {{0, 0, 0}, {3, 30, 40}, {2, 50, 70}, {5, 10, 83}};
+        // Regression of the bundled resource against its generator at a few nodes (a stale table fails here);
+        // the values are stored as floats: within one float ulp (the generator's own rounding).
+        int[][] nodes = {{0, 0, 0}, {3, 30, 58}, {2, 50, 88}, {5, 10, 102}, {1, 67, 20}};
         for (int[] n : nodes) {
-            double nu = n[0] * DiscCorrection.NU_STEP;
-            double[][] row = DiscCorrection.row(n[1], nu);
-            DiscCorrection.ratios(DiscCorrection.qAt(n[2]), DiscCorrection.n0At(n[1]), nu, out);
-            for (int p = 0; p < DiscCorrection.PARTS; p++) {
-                assertEquals(row[n[2]][p], out[p], 2e-6, "node " + java.util.Arrays.toString(n) + " part " + p);
+            double nu = n[0] * DiscFvkTable.NU_STEP;
+            double[][] row = DiscFvkTableWriter.row(n[1], nu);
+            for (int p = 0; p < DiscFvkTable.PARTS; p++) {
+                assertEquals(row[n[2]][p], DiscFvkTable.node(n[0], n[1], n[2], p), Math.ulp((float) row[n[2]][p]),
+                        "node " + java.util.Arrays.toString(n) + " part " + p);
             }
+        }
+    }
+
+    /**
+     * The cap's disc at dimensionless pre-force n0, load Q and Poisson's ratio ν (E 100 GPa, h 1 µm,
+     * a 500 µm): {edge face stress, centre face stress, deflection} in units of D/(a² h) and h.
+     */
+    private static double[] discCap(double nu, double n0, double bigQ) {
+        double e = 100e9;
+        double h = 1e-6;
+        double a = 500e-6;
+        double d = e / (1 - nu * nu) * h * h * h / 12;
+        double scale = d / (a * a * h);
+        CapStructure c = new CapStructure(FilmProperties.elastic(e, nu, CapStructure.SILICON_CTE_PER_K, T0, n0 * scale), h,
+                SpanGeometry.disc(2 * a), CapStructure.SILICON_CTE_PER_K, MechanicalLimits.withSafetyFactor(1));
+        CapResponse r = c.evaluate(T0, bigQ * d * h / Math.pow(a, 4));
+        return new double[] {r.edgeStressPa() / scale, r.centreStressPa() / scale, r.deflectionM() / h};
+    }
+
+    /** Largest relative difference of edge, centre face stress (against max(|ref|, |n0|)) and deflection. */
+    private static double discDifference(double[] code, double[] ref, double n0) {
+        double eEdge = Math.abs(code[0] - ref[0]) / Math.max(Math.abs(ref[0]), Math.abs(n0));
+        double eCentre = Math.abs(code[1] - ref[1]) / Math.max(Math.abs(ref[1]), Math.abs(n0));
+        double eDefl = Math.abs(code[2] / ref[2] - 1);
+        return Math.max(eEdge, Math.max(eCentre, eDefl));
+    }
+
+    /**
+     * {edge face stress, centre face stress, deflection} by {@link AxisymmetricFvk}, continued in load from Q = 1e-3 in
+     * steps of at most a factor e (sub-steps where Newton fails), Richardson-extrapolated between n and 2n intervals,
+     * n = 200, 400, 800 until the two differ by less than 1e-4.
+     */
+    private static double[] finiteDifferences(double n0, double bigQ, double nu) {
+        for (int n = 200; ; n *= 2) {
+            AxisymmetricFvk coarse = new AxisymmetricFvk(n, nu);
+            AxisymmetricFvk fine = new AxisymmetricFvk(2 * n, nu);
+            int steps = (int) Math.ceil(Math.max(Math.log(bigQ / 1e-3), 0)) + 1;
+            AxisymmetricFvk.Solution a = null;
+            AxisymmetricFvk.Solution b = null;
+            double last = 0;
+            for (int k = 1; k <= steps; k++) {
+                double q = bigQ * Math.exp(-(steps - k) * Math.log(Math.max(bigQ / 1e-3, 1)) / Math.max(steps - 1, 1));
+                a = null;
+                for (int sub = 1; sub <= 64 && (a == null || b == null); sub *= 4) {
+                    for (int m = 1; m <= sub; m++) {
+                        double qm = last + (q - last) * m / sub;
+                        a = coarse.solve(n0, qm);
+                        b = fine.solve(n0, qm);
+                        if (a == null || b == null) {
+                            break;
+                        }
+                    }
+                }
+                assertTrue(a != null && b != null, "finite differences failed at n0 " + n0 + ", Q " + q);
+                last = q;
+            }
+            double change = Math.max(Math.abs(a.edgeFaceStress() / b.edgeFaceStress() - 1),
+                    Math.max(Math.abs(a.centreFaceStress() / b.centreFaceStress() - 1), Math.abs(a.deflection() / b.deflection() - 1)));
+            if (change < 1e-4 || n == 800) {
+                assertTrue(change < 1e-3, "finite differences at n0 " + n0 + ", Q " + bigQ + " change by " + change);
+                return new double[] {b.edgeFaceStress() + (b.edgeFaceStress() - a.edgeFaceStress()) / 3,
+                    b.centreFaceStress() + (b.centreFaceStress() - a.centreFaceStress()) / 3,
+                    b.deflection() + (b.deflection() - a.deflection()) / 3};
+            }
+        }
+    }
+
+    @Test
+    void discTableInterpolationAgainstShootingMidCell() {
+        // The table's interpolation error where it is largest: in the middle of a cell in ln Q, in the pre-force
+        // coordinate and between two ν slices. Cells drawn at random (seeded). Up to n0 ≈ 100 and Q ≈ 1e3 (the
+        // shooting's reach: beyond it the centre-to-edge growth e^{√n} of the solution defeats the shooting) against
+        // the independent shooting solution (derived, no published source); over the whole table (Q 1e-3 … 1e8, n0 up
+        // to 1e5) against the finite-difference solver solved afresh at the cell's centre (the table's method, but
+        // not its nodes: this measures the interpolation; the solver itself is checked against the shooting above).
+        // Measured largest differences on these cells 4.9e-5 (shooting) and 8.7e-5 (finite differences); a one-off run
+        // over every cell of the ν = 0.3 slice (finite differences at 22 410 points on a grid of half the table's steps)
+        // gave 1.2e-4 (edge), 2.0e-4 (centre) and 8.9e-5 (deflection). Held to 1e-3.
+        long seed = 20251202L;
+        java.util.Random random = new java.util.Random(seed);
+        double worstShooting = 0;
+        double worstFd = 0;
+        for (int trial = 0; trial < 28; trial++) {
+            boolean shooting = trial < 16;
+            int i = random.nextInt(shooting ? 56 : DiscFvkTable.NX - 1);        // Q up to 1e3 (shooting) or 1e8
+            int j = random.nextInt(shooting ? 34 : DiscFvkTable.NY - 1);         // n0 up to 100 (shooting) or 1e5
+            int k = random.nextInt(DiscFvkTable.NNU - 1);
+            double bigQ = Math.exp(DiscFvkTable.X_MIN + (i + 0.5) * DiscFvkTable.X_STEP);
+            double n0 = -DiscFvkTable.BUCKLING * Math.expm1(DiscFvkTable.Y_MIN + (j + 0.5) * DiscFvkTable.Y_STEP);
+            double nu = (k + 0.5) * DiscFvkTable.NU_STEP;
+            double[] ref;
+            if (shooting) {
+                ref = discShooting(n0, bigQ, nu, 0, 0);
+            } else {
+                ref = finiteDifferences(n0, bigQ, nu);
+            }
+            double[] code = discCap(nu, n0, bigQ);
+            double diff = discDifference(code, ref, n0);
+            if (shooting) {
+                worstShooting = Math.max(worstShooting, diff);
+            } else {
+                worstFd = Math.max(worstFd, diff);
+            }
+            assertTrue(diff < 1e-3, "seed " + seed + ", trial " + trial + ": ν " + nu + ", n0 " + n0 + ", Q " + bigQ
+                    + ": code " + java.util.Arrays.toString(code) + " vs " + (shooting ? "shooting " : "finite differences ")
+                    + java.util.Arrays.toString(ref));
+        }
+        System.out.println("disc table mid-cell, largest relative difference: vs shooting " + worstShooting
+                + ", vs finite differences " + worstFd);
+    }
+
+    @Test
+    void discBeyondTheTableIsContinuousAndFollowsShooting() {
+        // Outside the table the uniform-force model carries the FvK/model ratio of the nearest grid point. Across each
+        // edge of the grid the response must not jump (1e-6: only the interpolation across 2e-9 of a step), and
+        // beyond it stay near the independent shooting solution (derived, no published source): below the grid in
+        // Q the plate is linear (1e-3); just beyond 0.99 of the buckling compression and for ν < 0 the ratio held
+        // is that of the neighbouring point (2 %, the tolerance; measured figures in docs/model.md).
+        double xMax = DiscFvkTable.X_MIN + (DiscFvkTable.NX - 1) * DiscFvkTable.X_STEP;
+        double yMax = DiscFvkTable.Y_MIN + (DiscFvkTable.NY - 1) * DiscFvkTable.Y_STEP;
+        double[][] edges = {   // {ν, n0, Q} on the edges
+            {0.25, 3, Math.exp(DiscFvkTable.X_MIN)},
+            {0.25, 3, Math.exp(xMax)},
+            {0.3, DiscFvkTable.n0At(0), 40},
+            {0.3, -DiscFvkTable.BUCKLING * Math.expm1(yMax), 1e6},
+        };
+        for (double[] e : edges) {
+            for (int dir = 0; dir < 2; dir++) {
+                double f = 1 + 1e-9 * (dir == 0 ? 1 : -1);
+                double[] a = discCap(e[0], e[1], e[2]);
+                double[] b = dir == 0 ? discCap(e[0], e[1], e[2] * f) : discCap(e[0], e[1] + 1e-9 * Math.abs(e[1]) * (e[1] < 0 ? -1 : 1), e[2]);
+                String where = "edge ν " + e[0] + ", n0 " + e[1] + ", Q " + e[2];
+                for (int p = 0; p < 3; p++) {
+                    assertEquals(a[p], b[p], 1e-6 * Math.abs(a[p]) + 1e-9 * Math.abs(e[1]), where + " part " + p);
+                }
+            }
+        }
+        double[][] beyond = {  // {ν, n0, Q, tolerance}
+            {0.25, 3, 2e-4, 1e-3},
+            {0.3, -14.0, 1e-4, 1e-3},
+            {0.3, 0.995 * DiscFvkTable.BUCKLING, 0.5, 0.02},
+            {0.3, 0.995 * DiscFvkTable.BUCKLING, 30, 0.02},
+            {-0.2, 5, 50, 0.02},
+            {-0.2, -7, 5, 0.02},
+        };
+        for (double[] b : beyond) {
+            double[] ref = discShooting(b[1], b[2], b[0], 0, 0);
+            double[] code = discCap(b[0], b[1], b[2]);
+            double diff = discDifference(code, ref, b[1]);
+            System.out.println("disc beyond the table, ν " + b[0] + ", n0 " + b[1] + ", Q " + b[2] + ": relative difference " + diff);
+            assertTrue(diff < b[3], "ν " + b[0] + ", n0 " + b[1] + ", Q " + b[2] + ": code " + java.util.Arrays.toString(code)
+                    + " vs shooting " + java.util.Arrays.toString(ref));
         }
     }
 
