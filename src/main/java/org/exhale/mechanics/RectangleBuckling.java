@@ -37,6 +37,22 @@ final class RectangleBuckling {
         0.9437531, 0.9432818, 0.9429677, 0.9427977, 0.9427342, 0.9426798, 0.9423555, 0.9421263,
         0.9419933,
     };
+    /**
+     * λ_s/π² of the modes symmetric about both centre lines (the ones a uniform pressure excites; the
+     * same Ritz solution with even terms along the length only): equal to λ up to L/w = 2.7, above it
+     * at most lengths beyond, where a mode antisymmetric along the length buckles first.
+     */
+    static final double[] SYMMETRIC_OVER_PI2 = {
+        1.3259065, 1.2658196, 1.2164806, 1.1758023, 1.1421436, 1.1142042, 1.0909470, 1.0715396,
+        1.0553104, 1.0417146, 1.0303081, 1.0207276, 1.0126742, 1.0059016, 1.0002055, 0.9954165,
+        0.9913932, 0.9880174, 0.9851899, 0.9828274, 0.9808595, 0.9778786, 0.9758711, 0.9745634,
+        0.9737541, 0.9732923, 0.9730625, 0.9729727, 0.9729459, 0.9729116, 0.9727982, 0.9725260,
+        0.9720012, 0.9711197, 0.9697935, 0.9680076, 0.9658644, 0.9635521, 0.9612599, 0.9591212,
+        0.9572080, 0.9535272, 0.9512648, 0.9500635, 0.9495643, 0.9494477, 0.9494165, 0.9491856,
+        0.9485492, 0.9475372, 0.9464108, 0.9454258, 0.9447016, 0.9442491, 0.9440226, 0.9439488,
+        0.9439390, 0.9438977, 0.9437437, 0.9434507, 0.9430676, 0.9426798, 0.9423555, 0.9421263,
+        0.9419933,
+    };
     /** λ∞/π² of the infinite clamped strip (characteristic equation above). */
     static final double LONG_PLATE_OVER_PI2 = 0.93926696;
     /** Relative lowering of the interpolated value (covers the interpolation's overestimate). */
@@ -45,16 +61,24 @@ final class RectangleBuckling {
     private RectangleBuckling() {
     }
 
-    /** λ = N_cr a²/D (positive) of the clamped rectangle of aspect ratio L/w ≥ 1. */
+    /** λ = N_cr a²/D (positive) of the clamped rectangle of aspect ratio L/w ≥ 1, lowered by {@link #MARGIN}. */
     static double lambda(double aspect) {
+        return Math.max(interpolate(LAMBDA_OVER_PI2, aspect) * (1 - MARGIN), LONG_PLATE_OVER_PI2) * Math.PI * Math.PI;
+    }
+
+    /** λ_s of the doubly symmetric modes, interpolated linearly (no margin: a model scale, not a limit). */
+    static double symmetricLambda(double aspect) {
+        return interpolate(SYMMETRIC_OVER_PI2, aspect) * Math.PI * Math.PI;
+    }
+
+    private static double interpolate(double[] values, double aspect) {
         if (!(aspect >= 1)) {
             throw new IllegalArgumentException("aspect ratio L/w must be >= 1, got " + aspect);
         }
         double[] a = ASPECTS;
         int last = a.length - 1;
-        double v;
         if (aspect >= a[last]) {
-            return LONG_PLATE_OVER_PI2 * Math.PI * Math.PI;
+            return LONG_PLATE_OVER_PI2;
         }
         int i = aspect < 2 ? (int) ((aspect - 1) / 0.05) : aspect < 4 ? 20 + (int) ((aspect - 2) / 0.1)
                 : 40 + (int) ((aspect - 4) / 0.25);
@@ -66,8 +90,7 @@ final class RectangleBuckling {
             i++;
         }
         double t = (aspect - a[i]) / (a[i + 1] - a[i]);
-        v = LAMBDA_OVER_PI2[i] + t * (LAMBDA_OVER_PI2[i + 1] - LAMBDA_OVER_PI2[i]);
-        return Math.max(v * (1 - MARGIN), LONG_PLATE_OVER_PI2) * Math.PI * Math.PI;
+        return values[i] + t * (values[i + 1] - values[i]);
     }
 
     private static double[] nodes() {

@@ -181,6 +181,11 @@ public final class RectangleBucklingRitz {
         return lowest(aspect, 8, (int) Math.ceil(8 * aspect) + 6);
     }
 
+    /** The same for the modes symmetric along the long side only (the ones a uniform pressure excites). */
+    static double convergedSymmetric(double aspect) {
+        return lowest(aspect, 8, (int) Math.ceil(8 * aspect) + 6, 0);
+    }
+
     /**
      * Prints λ/π² at the nodes of {@link RectangleBuckling} with the basis of {@link #converged} and a
      * smaller one (6 across, 6 b + 2 along), the largest difference between them, and the largest
@@ -198,6 +203,11 @@ public final class RectangleBucklingRitz {
             sb.append(String.format(Locale.ROOT, "%.7f,%s", values[i], i % 8 == 7 ? "\n" : " "));
         }
         System.out.println(sb);
+        StringBuilder sym = new StringBuilder();
+        for (int i = 0; i < nodes.length; i++) {
+            sym.append(String.format(Locale.ROOT, "%.7f,%s", convergedSymmetric(nodes[i]) / (Math.PI * Math.PI), i % 8 == 7 ? "\n" : " "));
+        }
+        System.out.println("symmetric:\n" + sym);
         double over = 0;
         double at = 0;
         for (int i = 0; i + 1 < nodes.length; i++) {
