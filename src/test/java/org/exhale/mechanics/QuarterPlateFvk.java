@@ -115,6 +115,15 @@ final class QuarterPlateFvk {
         lap = new double[size];
     }
 
+    /**
+     * Intervals along the half long side for n across: n·L/w up to 1.5 n, and beyond L/w = 4 growing
+     * with the length (0.375 n L/w) so that the waves of a long plate near buckling (wavelength about
+     * 5 a) keep several nodes each.
+     */
+    static int intervalsAlong(int n, double aspect) {
+        return (int) Math.round(n * (aspect <= 4 ? Math.min(1.5, aspect) : 0.375 * aspect));
+    }
+
     /** x of node i (units of a). */
     double x(int i) {
         double xi = i * dXi;

@@ -135,18 +135,56 @@ public final class RectangleCorrectionWriter {
         return x * lam;
     }
 
+    /**
+     * Long plates close to buckling (L/w = 6 at 0.98, L/w = 10 at 0.98 and 0.95 of buckling) give rows
+     * that jump by 30–50 % from node to node even after {@link #smoothed}: several wavy modes of nearly
+     * the same buckling load, which these grids do not separate. A row (of any ν) whose edge moment or
+     * deflection ratio departs anywhere by more than 10 % from its neighbours' mean takes, for every ν,
+     * the rows of the next pre-stress towards tension (working from tension down). [row][ν][node][part]
+     */
+    static void reliable(double[][][][] column) {
+        for (int j = column.length - 2; j >= 0; j--) {
+            boolean rough = false;
+            for (double[][] row : column[j]) {
+                for (int i = 1; i + 1 < row.length; i++) {
+                    for (int p : new int[] {2, 4}) {
+                        double mean = 0.5 * (row[i - 1][p] + row[i + 1][p]);
+                        rough |= Math.abs(row[i][p] - mean) > 0.1 * Math.abs(row[i][p]);
+                    }
+                }
+            }
+            if (rough) {
+                for (int m = 0; m < column[j].length; m++) {
+                    column[j][m] = column[j + 1][m];
+                }
+            }
+        }
+    }
+
     static QuarterPlateFvk plate(double aspect, double nu, double s0, int n) {
-        QuarterPlateFvk p = new QuarterPlateFvk(n, (int) Math.round(n * Math.min(1.5, aspect)), aspect, nu, s0, BETA);
+        QuarterPlateFvk p = new QuarterPlateFvk(n, QuarterPlateFvk.intervalsAlong(n, aspect), aspect, nu, s0, BETA);
         p.keepFactors = true;
         return p;
     }
 
-    /** Solves at Q from the plate's present state, in smaller steps where Newton fails. */
+    /**
+     * Solves at Q from the plate's present state; where Newton fails (near buckling a long plate's
+     * response can switch shape within one load step), in steps of 10 % and then 2 % with a fresh
+     * Jacobian at every step.
+     */
     static QuarterPlateFvk advance(QuarterPlateFvk p, double q) {
         try {
             p.solve(q);
         } catch (IllegalStateException e) {
-            p.solveTo(q, 1.1);
+            boolean keep = p.keepFactors;
+            p.keepFactors = false;
+            try {
+                p.solveTo(q, 1.1);
+            } catch (IllegalStateException again) {
+                p.solveTo(q, 1.02);
+            } finally {
+                p.keepFactors = keep;
+            }
         }
         return p;
     }
@@ -201,9 +239,31 @@ public final class RectangleCorrectionWriter {
             p.largestDeflection() / (q * fd)};
     }
 
+    /**
+     * Writes the table to args[0] (default: the resource in src/main/resources). With args[1] = k and
+     * args[2] = an existing table of the same grid, the columns of L/w below node k are copied from it
+     * and only the rest computed (to resume an interrupted run).
+     */
     public static void main(String[] args) throws IOException {
         Path out = Path.of(args.length > 0 ? args[0]
                 : "src/main/resources/org/exhale/mechanics/" + RectangleCorrection.RESOURCE);
+        int from = args.length > 2 ? Integer.parseInt(args[1]) : 0;
+        java.util.List<String> kept = new java.util.ArrayList<>();
+        if (from > 0) {
+            try (java.io.BufferedReader in = new java.io.BufferedReader(new java.io.InputStreamReader(
+                    new java.util.zip.GZIPInputStream(Files.newInputStream(Path.of(args[2]))), StandardCharsets.US_ASCII))) {
+                String line;
+                int lines = from * RectangleCorrection.NY * RectangleCorrection.NNU * RectangleCorrection.NX;
+                while ((line = in.readLine()) != null && kept.size() < lines) {
+                    if (!line.isEmpty() && line.charAt(0) != '#') {
+                        kept.add(line);
+                    }
+                }
+                if (kept.size() != lines) {
+                    throw new IOException(args[2] + " holds " + kept.size() + " of the " + lines + " lines of the first " + from + " columns");
+                }
+            }
+        }
         Files.createDirectories(out.getParent());
         Path tmp = out.resolveSibling(out.getFileName() + ".tmp");
         long t0 = System.nanoTime();
@@ -214,10 +274,20 @@ public final class RectangleCorrectionWriter {
                     java.util.Arrays.toString(RectangleCorrection.ASPECTS), java.util.Arrays.toString(RectangleCorrection.YS),
                     java.util.Arrays.toString(RectangleCorrection.NUS), RectangleCorrection.X_MIN, RectangleCorrection.X_STEP,
                     RectangleCorrection.NX));
-            for (int k = 0; k < RectangleCorrection.NA; k++) {
+            for (String line : kept) {
+                w.write(line + "\n");
+            }
+            for (int k = from; k < RectangleCorrection.NA; k++) {
+                double[][][][] column = new double[RectangleCorrection.NY][RectangleCorrection.NNU][][];
                 for (int j = 0; j < RectangleCorrection.NY; j++) {
                     for (int m = 0; m < RectangleCorrection.NNU; m++) {
-                        double[][] row = row(k, j, m);
+                        column[j][m] = row(k, j, m);
+                    }
+                }
+                reliable(column);
+                for (int j = 0; j < RectangleCorrection.NY; j++) {
+                    for (int m = 0; m < RectangleCorrection.NNU; m++) {
+                        double[][] row = column[j][m];
                         for (double[] node : row) {
                             StringBuilder sb = new StringBuilder();
                             for (int p = 0; p < node.length; p++) {
