@@ -721,13 +721,6 @@ public final class CaseYamlReader {
             warnings.add("the span (" + org.exhale.io.Numbers.sig(b.cavity().widthM() * 1e9, 4) + " nm) is under 5 cap thicknesses: thin-plate bending "
                     + "is only indicative; thermal stress dominates such caps");
         }
-        if (b.film() != null && b.cavity().span().shape() == org.exhale.mechanics.SpanGeometry.Shape.RECTANGLE
-                && b.cavity().span().lengthM() >= 1.25 * b.cavity().span().widthM()) {
-            warnings.add("the rectangular span (L/w " + org.exhale.io.Numbers.sig(b.cavity().span().lengthM() / b.cavity().span().widthM(), 3)
-                    + ") is modelled as a strip of its width: against a 2D plate solution that underestimates the largest cap stress "
-                    + "by up to 1.5 % (9 % under compressive pre-stress of half the strip's buckling stress), and buckling can come "
-                    + "below the strip's value; keep extra margin on strength, cracking and buckling (docs/model.md, Rectangle)");
-        }
         if (b.recipe() != null && b.recipe().maxSetpointK() > b.limits().ceilingK()) {
             warnings.add("the recipe's highest setpoint " + fmtC(b.recipe().maxSetpointK()) + " is above the ceiling "
                     + fmtC(b.limits().ceilingK()));

@@ -30,12 +30,17 @@ import org.hipparchus.util.FastMath;
  *       independent shooting solution in the tests), so no call solves for the force. The
  *       uniform-force model, N = σ_th h + E h/(1−ν) · (1/2a²)∫φ² r dr with the Bessel shape solved
  *       self-consistently, remains for the crack along the span and beyond the table's range.</li>
- *   <li><b>Rectangle</b> w × L: the strip of width w (the solution across the long edges). In the
- *       small-deflection limit the strip's edge stress ½ q w²/h² is the largest of Roark's
- *       tabulated clamped rectangles (β1 ≤ 0.5, Table 11.4 case 8a). Against a 2D FvK solution it is
- *       conservative for near-square spans but not everywhere for L/w ≥ 1.5: the 2D largest face
- *       stress exceeds it by up to about 1.5 % without compression and up to 9 % with 0.5 σ_cr
- *       compression (docs/model.md; RectangleFvkTest).</li>
+ *   <li><b>Rectangle</b> w × L: the clamped strip of width w as a base (with its compressive
+ *       pre-stress scaled by π²/λ_s, λ_s the rectangle's doubly symmetric buckling load, so that it is
+ *       amplified near buckling as the rectangle is), corrected part by part — edge and centre stretching
+ *       force, edge and centre moment, largest deflection — to the two-dimensional Föppl–von Kármán
+ *       solution of the clamped rectangle by the tabulated ratios of {@link RectangleCorrection}
+ *       (finite-difference FvK solutions by L/w, pre-stress, load and ν; docs/model.md gives the
+ *       errors measured off the table's nodes). The edge value is the largest face stress on the
+ *       clamped boundary (raised where a point just inside carries more), so σ_max = max(σ_edge,
+ *       σ_centre) is the 2D largest principal face stress. The strip alone is not conservative for
+ *       L/w ≳ 1.5 (up to 9 % low under compression) and very conservative for the square (up to 40 %
+ *       high).</li>
  *   <li><b>Face stresses</b>: σ_edge = N/h + 6|M_e|/h², σ_centre = N/h + 6|M_c|/h². Strength,
  *       the bonded channel crack and delamination are checked on the larger of the two.</li>
  *   <li><b>Channel cracking where bonded</b> G = Z σ_max² h/Ē, Z = 1.976, only while σ_max &gt; 0
@@ -52,8 +57,9 @@ import org.hipparchus.util.FastMath;
  *       largest face-stress magnitude (either face, edge or centre).</li>
  *   <li><b>Buckling</b> of the freed cap under compressive σ_th: line σ_cr = (π²/3) Ē (h/w)²
  *       (clamped strip); disc σ_cr = (j₁₁²/3) Ē (h/w)², j₁₁ = 3.8317 the first zero of J₁;
- *       rectangle: the line value for the short side (not a lower bound under equi-biaxial
- *       compression for L/w ≥ 2: docs/model.md).</li>
+ *       rectangle σ_cr = λ(L/w) D/(h a²), the clamped rectangle under equi-biaxial compression
+ *       ({@link RectangleBuckling}: 1.326 π² for the square, below the strip's π² from L/w ≈ 1.7, down to
+ *       0.939 π² for a long plate).</li>
  * </ul>
  *
  * <p>Validity: Kirchhoff plates (w/h ≳ 10), moderate rotations, linear elastic, isotropic film;
@@ -82,6 +88,9 @@ public final class CapStructure {
     private final boolean disc;
     /** The disc's tabulated FvK response at this film's ν (null for other shapes). */
     private final DiscFvkTable discTable;
+    private final boolean rectangle;
+    /** L/w of a rectangle (1 otherwise). */
+    private final double aspect;
 
     private final double planeStrainModulusPa;
     private final double flexuralRigidityNm;
@@ -118,6 +127,8 @@ public final class CapStructure {
         this.plate = PlateCoefficients.forSpan(span);
         this.disc = span.shape() == SpanGeometry.Shape.DISC;
         this.discTable = disc ? new DiscFvkTable(film.poisson()) : null;
+        this.rectangle = span.shape() == SpanGeometry.Shape.RECTANGLE;
+        this.aspect = rectangle ? span.lengthM() / span.widthM() : 1;
 
         double h = thicknessM;
         double w = span.widthM();
@@ -133,6 +144,7 @@ public final class CapStructure {
         double hw = h / w;
         bucklingStressPa = disc
                 ? BESSEL_J1_FIRST_ZERO * BESSEL_J1_FIRST_ZERO / 3 * planeStrainModulusPa * hw * hw
+                : rectangle ? RectangleBuckling.lambda(aspect) / sPerPa
                 : Math.PI * Math.PI / 3 * planeStrainModulusPa * hw * hw;
     }
 
@@ -147,6 +159,13 @@ public final class CapStructure {
         double q = qPerPa * Math.abs(excessPressurePa);
         if (q == 0) {
             return 0;
+        }
+        if (rectangle) {
+            double s0b = RectangleCorrection.baseS0(aspect, s0);
+            double[] r = new double[RectangleCorrection.PARTS];
+            RectangleCorrection.ratios(aspect, s0, q, film.poisson(), r);
+            return Math.signum(excessPressurePa) * thicknessM * q
+                    * MembraneFunctions.stripDeflection(solveTension(s0b, q)) * r[4];
         }
         if (disc) {
             return Math.signum(excessPressurePa) * thicknessM * discTable.deflection(q, s0);
@@ -176,7 +195,9 @@ public final class CapStructure {
         double sigmaTh = thermalStressPa(temperatureK);
         double s0 = sPerPa * sigmaTh;
         double q = qPerPa * Math.abs(excessPressurePa);
-        double s = q == 0 || disc ? s0 : solveTension(s0, q);
+        // a rectangle's base model is the strip at its compression scaled to the rectangle's buckling
+        double s0Model = rectangle ? RectangleCorrection.baseS0(aspect, s0) : s0;
+        double s = q == 0 || disc ? s0 : solveTension(s0Model, q);
         double sigmaN = s / sPerPa;                               // N/h (uniform force: strip)
         double sigmaNCentre = sigmaN;
         double delta;
@@ -200,6 +221,18 @@ public final class CapStructure {
             // the strip's distribution of M across the span at the uniform-force model's force
             double sModel = s0 + f[DiscFvkTable.MODEL_STRETCH];
             ratioSquare = sModel > MembraneFunctions.STRIP_BUCKLING_S ? MembraneFunctions.stripBendingShare(sModel) : 1;
+        } else if (rectangle) {
+            // to the 2D FvK solution of the clamped rectangle: parts of the strip base, tabulated ratios
+            double[] r = new double[RectangleCorrection.PARTS];
+            RectangleCorrection.ratios(aspect, s0, q, film.poisson(), r);
+            double stretch = s - s0Model;
+            sigmaN = (s0 + r[0] * stretch) / sPerPa;
+            sigmaNCentre = (s0 + r[1] * stretch) / sPerPa;
+            double fe = MembraneFunctions.stripEdge(s);
+            delta = h * q * MembraneFunctions.stripDeflection(s) * r[4];
+            mEdge = q * Math.abs(fe) * r[2];
+            mCentre = q * Math.abs(MembraneFunctions.stripCentre(s)) * r[3];
+            ratioSquare = MembraneFunctions.stripBendingEnergy(s) / (2 * fe * fe);
         } else {
             delta = h * q * MembraneFunctions.stripDeflection(s);
             double fe = MembraneFunctions.stripEdge(s);

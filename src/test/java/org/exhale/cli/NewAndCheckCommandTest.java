@@ -68,11 +68,8 @@ class NewAndCheckCommandTest {
         assertTrue(checked.out().contains("Caution: "), "check shows the usual cautions");
 
         CaseFile cf = CaseYamlReader.read(file);
-        // a template raises no warnings, except the model limit every long rectangle carries (docs/model.md, Rectangle)
-        assertEquals(List.of(), cf.warnings().stream().filter(w -> !w.startsWith("the rectangular span")).toList(),
-                "a template should raise no other warnings");
-        assertEquals(kind.name().equals("rectangle"), cf.warnings().stream().anyMatch(w -> w.startsWith("the rectangular span")),
-                "long rectangles carry the strip-model warning");
+        // a template raises no warnings (rectangles are corrected to the 2D plate solution: docs/model.md, Rectangle)
+        assertEquals(List.of(), cf.warnings(), "a template should raise no warnings");
         assertEquals(kind.name(), cf.bake().cavity().shape().name().toLowerCase(java.util.Locale.ROOT));
         assertEquals(dense, cf.bake().cap().porosity() == 0);
         BakeResult r = BakeSimulator.simulate(cf.bake());

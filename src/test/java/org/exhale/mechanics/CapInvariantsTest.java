@@ -55,6 +55,8 @@ class CapInvariantsTest {
             assertTrue(s2 >= s1 * (1 - 1e-9), where + ": edge stress fell from " + s1 + " to " + s2);
             assertTrue(s1 >= c.thermalStressPa(t) - 1e-6 * Math.abs(c.thermalStressPa(t)), where + ": pressure lowered the edge stress");
             assertEquals(c.evaluate(t, sign * p1).maxStressPa(), c.edgeStressPa(t, sign * p1), 0, where);
+            double d = c.evaluate(t, sign * p1).deflectionM();
+            assertEquals(d, c.deflectionM(t, sign * p1), 1e-12 * Math.abs(d), where + ": the two deflection paths agree");
         }
     }
 

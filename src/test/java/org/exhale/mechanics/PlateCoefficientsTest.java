@@ -34,22 +34,26 @@ class PlateCoefficientsTest {
     }
 
     /*
-     * The cap's rectangle is the strip of its short side (CapStructure): conservative against Roark's
-     * clamped rectangle, Table 11.4 case 8a (ν = 0.3), in the small-deflection limit: its edge stress and
-     * deflection are never below β1 q b²/t² and α q b⁴/(E t³).
+     * The cap's rectangle (the strip corrected to the 2D Föppl–von Kármán solution, RectangleCorrection)
+     * in the small-deflection limit against Roark's clamped rectangle, Table 11.4 case 8a (ν = 0.3): its
+     * edge stress and deflection are never below β1 q b²/t² and α q b⁴/(E t³) and at most 2 % above
+     * (the table's four digits and its 1 % safety; measured +0.9 to +1.3 %). The plain strip,
+     * σ = q b²/(2t²), was 62 % high for the square.
      */
     @ParameterizedTest
     @CsvSource({"1.0, 0.3078, 0.0138", "1.2, 0.3834, 0.0188", "1.4, 0.4356, 0.0226", "1.6, 0.4680, 0.0251",
             "1.8, 0.4872, 0.0267", "2.0, 0.4974, 0.0277"})
-    void rectangleIsConservativeAgainstRoarkTable11_4Case8a(double aspect, double beta1, double alpha) {
+    void rectangleMatchesRoarkTable11_4Case8a(double aspect, double beta1, double alpha) {
         double b = 10e-6;
         double t = 0.5e-6;
         double q = 1.0;
         CapResponse r = cap(SpanGeometry.rectangle(b, aspect * b), t).evaluate(T0, q);
-        assertTrue(r.bendingStressPa() >= beta1 * q * b * b / (t * t), "edge stress below Roark at " + aspect);
-        assertTrue(r.deflectionM() >= alpha * q * Math.pow(b, 4) / (E * t * t * t), "deflection below Roark at " + aspect);
-        // and equal to the clamped strip: σ = q b²/(2t²) (common practice, no source)
-        assertEquals(0.5 * q * b * b / (t * t), r.bendingStressPa(), 1e-6 * r.bendingStressPa());
+        double sigma = beta1 * q * b * b / (t * t);
+        double delta = alpha * q * Math.pow(b, 4) / (E * t * t * t);
+        assertTrue(r.bendingStressPa() >= sigma && r.bendingStressPa() <= 1.02 * sigma,
+                "edge stress at L/w " + aspect + ": " + r.bendingStressPa() / sigma + " of Roark's");
+        assertTrue(r.deflectionM() >= delta * (1 - 0.0001 / alpha) && r.deflectionM() <= 1.02 * delta,
+                "deflection at L/w " + aspect + ": " + r.deflectionM() / delta + " of Roark's");
     }
 
     @Test

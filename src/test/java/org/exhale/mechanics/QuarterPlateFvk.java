@@ -55,6 +55,9 @@ final class QuarterPlateFvk {
     /** Factored Jacobian (banded LU) and whether it belongs to a state of the present solve. */
     private double[] lu;
     private boolean fresh;
+    /** Whether a solve may start from the factors of the previous one (rebuilt when Newton stalls). */
+    boolean keepFactors;
+    private boolean factored;
     private double previousQ = Double.NaN;
     private double stateQ = 0;
     /** Newton iterations used so far (for the cost statement of the tests). */
@@ -110,6 +113,15 @@ final class QuarterPlateFvk {
         up = new double[size];
         vp = new double[size];
         lap = new double[size];
+    }
+
+    /**
+     * Intervals along the half long side for n across: n·L/w up to 1.5 n, and beyond L/w = 4 growing
+     * with the length (0.375 n L/w) so that the waves of a long plate near buckling (wavelength about
+     * 5 a) keep several nodes each.
+     */
+    static int intervalsAlong(int n, double aspect) {
+        return (int) Math.round(n * (aspect <= 4 ? Math.min(1.5, aspect) : 0.375 * aspect));
     }
 
     /** x of node i (units of a). */
@@ -258,7 +270,7 @@ final class QuarterPlateFvk {
             lu = new double[unknowns * (2 * band + 1)];
         }
         boolean converged = false;
-        fresh = false;
+        fresh = keepFactors && factored;
         double lastStep = Double.POSITIVE_INFINITY;
         // Newton's method with the factored Jacobian kept while the steps shrink by at least a factor 2
         for (int it = 0; it < 200 && !converged; it++) {
@@ -269,6 +281,7 @@ final class QuarterPlateFvk {
                 factor(lu);
                 factorisations++;
                 fresh = true;
+                factored = true;
             }
             double[] d = r.clone();
             solveFactored(lu, d);
@@ -418,10 +431,36 @@ final class QuarterPlateFvk {
         return state[0];
     }
 
+    /** The largest deflection magnitude anywhere (in h), with the sign of the pressure (positive). */
+    double largestDeflection() {
+        double m = 0;
+        for (int k = 0; k < unknowns; k += 3) {
+            m = Math.max(m, Math.abs(state[k]));
+        }
+        return m;
+    }
+
+    /**
+     * Mean deflection over the plate (in h): the work of the uniform pressure per unit load; near a
+     * buckling load it is dominated by that mode for any shape of the mode, since every mode enters
+     * with the square of its projection on the load.
+     */
+    double meanDeflection() {
+        double sum = 0;
+        for (int j = 0; j < ny; j++) {
+            double wy = (j == 0 ? 0.5 : 1) * dEta * yp[j];
+            for (int i = 0; i < nx; i++) {
+                double wx = (i == 0 ? 0.5 : 1) * dXi * xp[i];
+                sum += state[idx(i, j)] * wx * wy;
+            }
+        }
+        return sum / b;
+    }
+
     /** The face-stress field of the present state (units of Ē h²/a²). */
     Stresses stresses() {
         pad(state);
-        Stresses out = new Stresses(ny);
+        Stresses out = new Stresses(nx, ny);
         out.edge = Double.NEGATIVE_INFINITY;
         double g = 0.5 * (1 - nu);
         for (int j = 0; j <= ny; j++) {
@@ -438,6 +477,8 @@ final class QuarterPlateFvk {
                 double ex = ux + 0.5 * wx * wx;
                 double ey = vy + 0.5 * wy * wy;
                 double gam = uy + vx + wx * wy;
+                out.stretchX[i][j] = 12 * (ex + nu * ey);
+                out.stretchY[i][j] = 12 * (ey + nu * ex);
                 double sx = (s0 + 12 * (ex + nu * ey)) / 12;
                 double sy = (s0 + 12 * (ey + nu * ex)) / 12;
                 double sxy = g * gam;
@@ -451,6 +492,7 @@ final class QuarterPlateFvk {
                     double mean = 0.5 * (ax + ay);
                     double rad = Math.hypot(0.5 * (ax - ay), axy);
                     double principal = mean + rad;
+                    out.min = Math.min(out.min, mean - rad);
                     if (principal > out.max) {
                         out.max = principal;
                         out.maxI = i;
@@ -459,12 +501,23 @@ final class QuarterPlateFvk {
                     if (i == nx && j == 0) {
                         out.edge = Math.max(out.edge, ax);
                     }
-                    if (i == nx) {
-                        out.longEdge[j] = Math.max(out.longEdge[j], ax);
+                    if (i == nx && ax > out.longEdge[j]) {
+                        out.longEdge[j] = ax;
+                        out.longEdgeStretch[j] = 12 * (ex + nu * ey);
+                        out.longEdgeM[j] = 2 * face * mx;
+                    }
+                    if (j == ny && ay > out.shortEdgeAt[i]) {
+                        out.shortEdgeAt[i] = ay;
+                        out.shortEdgeStretch[i] = 12 * (ey + nu * ex);
+                        out.shortEdgeM[i] = 2 * face * my;
                     }
                     if (i == 0 && j == 0) {
                         out.centreX = Math.max(out.centreX, ax);
                         out.centreY = Math.max(out.centreY, ay);
+                        out.centreStretchX = 12 * (ex + nu * ey);
+                        out.centreStretchY = 12 * (ey + nu * ex);
+                        out.centreMX = Math.abs(2 * mx);
+                        out.centreMY = Math.abs(2 * my);
                     }
                     if (i == 0 && j == ny) {
                         out.shortEdge = Math.max(out.shortEdge, ay);
@@ -487,6 +540,8 @@ final class QuarterPlateFvk {
     static final class Stresses {
         /** Largest principal face stress anywhere, and its node. */
         double max = Double.NEGATIVE_INFINITY;
+        /** Smallest (most compressive) principal face stress anywhere. */
+        double min = Double.POSITIVE_INFINITY;
         int maxI;
         int maxJ;
         /** σ_x on the face in tension at the middle of the long edge. */
@@ -499,9 +554,38 @@ final class QuarterPlateFvk {
         /** σ_x on the face in tension along the long edge, node j = 0..ny. */
         final double[] longEdge;
 
-        Stresses(int ny) {
+        /**
+         * The stretching part n̂_x − s0 of the membrane force (from the strains, without the pre-stress,
+         * so free of cancellation) and the bending moment m̂_x with the sign of the face in tension, at
+         * those nodes: σ̂ = (s0 + stretch)/12 + m̂/2.
+         */
+        final double[] longEdgeStretch;
+        final double[] longEdgeM;
+        /** σ_y on the face in tension along the short edge, node i = 0..nx, with n̂_y − s0 and m̂_y. */
+        final double[] shortEdgeAt;
+        final double[] shortEdgeStretch;
+        final double[] shortEdgeM;
+        /** Stretching parts n̂ − s0 and moment magnitudes |m̂| at the centre, across (x) and along (y). */
+        double centreStretchX;
+        double centreStretchY;
+        double centreMX;
+        double centreMY;
+
+        /** Stretching parts n̂_x − s0 and n̂_y − s0 at every node [i][j]. */
+        final double[][] stretchX;
+        final double[][] stretchY;
+
+        Stresses(int nx, int ny) {
+            stretchX = new double[nx + 1][ny + 1];
+            stretchY = new double[nx + 1][ny + 1];
             longEdge = new double[ny + 1];
             java.util.Arrays.fill(longEdge, Double.NEGATIVE_INFINITY);
+            longEdgeStretch = new double[ny + 1];
+            longEdgeM = new double[ny + 1];
+            shortEdgeAt = new double[nx + 1];
+            java.util.Arrays.fill(shortEdgeAt, Double.NEGATIVE_INFINITY);
+            shortEdgeStretch = new double[nx + 1];
+            shortEdgeM = new double[nx + 1];
         }
     }
 }
