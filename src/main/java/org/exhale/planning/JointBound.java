@@ -152,6 +152,9 @@ final class JointBound {
         this.capped = new CappedClock(comps[q], cap, spread);
         if (storedBins > 0) {
             this.storage = new StoredGas(bake, limits, comps, q, hotCeilingK, 2 * spread);
+            // below the recipe's start temperature a move gains too little to matter: its hulls are coarse there
+            storage.cold.resolveFrom(comps[q].rateConstant(startK));
+            storage.hot.resolveFrom(comps[q].rateConstant(startK));
             this.bins = storedBins;
             this.binWidth = storage.maxStoredMolPerM2 / storedBins;
             this.liveBins = new int[storedBins];

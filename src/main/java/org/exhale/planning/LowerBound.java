@@ -69,7 +69,7 @@ public final class LowerBound {
      * The stored-gas joint bound: bins of the followed corner's stored gas, its clock step, and the cells of the coarse
      * quasi-steady guide (measured on the dense demo: 16 / 24 / 32 bins 206.9 / 208.0 / 208.5 min).
      */
-    static final int STORED_BINS = 24;
+    static final int STORED_BINS = 16;
     static final double STORED_CLOCK_DELTA = 0.1;
     static final double GUIDE_CELL_WIDTH = 0.03;
     /** Parts of each clock level with several components (each with its own floors). */

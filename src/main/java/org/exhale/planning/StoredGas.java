@@ -344,11 +344,38 @@ final class StoredGas {
          * Σ λ_j θ_j + ∫(γ − Σ λ_j k_j − J) dt for any λ ≥ 0.
          */
         Phi phi(double[] a, double[] lambda) {
+            if (lambda == null) {
+                return new Phi(x, a, kappa, vent);
+            }
             int n = x.length;
-            double[] hxs = new double[n];
-            double[] hys = new double[n];
+            double[] hxs = new double[n + 1];
+            double[] hys = new double[n + 1];
             int m = 0;
-            for (int i = 0; i < n; i++) {
+            // below the breakpoint `low` the integrand is at least its value there with the gas left out (γ ≥ 0, the
+            // other terms fall with u): one flat step stands for that stretch, so the hull is built on fewer points
+            int first = 0;
+            if (low > 0) {
+                double floor = -vent[low];
+                for (int j = 0; j < a.length; j++) {
+                    if (lambda[j] > 0) {
+                        floor -= lambda[j] * hotKappa[j][low] * (1 + 1e-12);
+                    }
+                }
+                hxs[0] = 0;
+                hys[0] = floor;
+                m = 1;
+                first = low;
+                // the step's right end (x_low, floor) is below the value at x_low, so the hull passes under it
+                double yl = floor;
+                while (m >= 2 && (hxs[m - 1] - hxs[m - 2]) * (yl - hys[m - 2]) - (hys[m - 1] - hys[m - 2]) * (x[low] - hxs[m - 2]) <= 0) {
+                    m--;
+                }
+                hxs[m] = x[low];
+                hys[m] = yl;
+                m++;
+                first = low + 1;
+            }
+            for (int i = first; i < n; i++) {
                 double g = 0;
                 for (int j = 0; j < a.length; j++) {
                     g += a[j] * kappa[j][i];
@@ -367,6 +394,18 @@ final class StoredGas {
             }
             return new Phi(Arrays.copyOf(hxs, m), Arrays.copyOf(hys, m));
         }
+
+        /** The first breakpoint at or above the clock's rate constant at the coolest temperature worth resolving. */
+        private int low;
+
+        /** Below {@code coolK} (hot corner) the hulls of {@link #phi} with multipliers are not resolved point by point. */
+        void resolveFrom(double clockRateAtCool) {
+            int i = 0;
+            while (i + 1 < x.length && x[i] < clockRateAtCool) {
+                i++;
+            }
+            low = i;
+        }
     }
 
     /**
@@ -375,23 +414,81 @@ final class StoredGas {
      */
     static final class Phi {
         private final double[] x;
+        /** The values at the breakpoints, or null: then they are Σ a_j κ_j − Ĵ, evaluated when asked (convex as it is). */
         private final double[] y;
-        private final int argmin;
+        private final double[] a;
+        private final double[][] kappa;
+        private final double[] vent;
+        private int argmin = -1;
 
         Phi(double[] x, double[] y) {
             this.x = x;
             this.y = y;
-            int a = 0;
-            for (int i = 1; i < y.length; i++) {
-                if (y[i] < y[a]) {
-                    a = i;
+            this.a = null;
+            this.kappa = null;
+            this.vent = null;
+        }
+
+        /** φ = Σ a_j κ̆_j − Ĵ on the corner's breakpoints, evaluated lazily (a search looks at a few of them). */
+        Phi(double[] x, double[] a, double[][] kappa, double[] vent) {
+            this.x = x;
+            this.y = null;
+            this.a = a.clone();
+            this.kappa = kappa;
+            this.vent = vent;
+        }
+
+        private double yv(int i) {
+            if (y != null) {
+                return y[i];
+            }
+            double g = 0;
+            for (int j = 0; j < a.length; j++) {
+                if (a[j] != 0) {
+                    g += a[j] * kappa[j][i];
                 }
             }
-            this.argmin = a;
+            return g - vent[i];
+        }
+
+        /** The breakpoint where φ is least (φ convex: the first whose next difference is not negative). */
+        private int argmin() {
+            if (argmin < 0) {
+                int lo = 0;
+                int hi = x.length - 1;
+                while (lo < hi) {
+                    int mid = (lo + hi) >>> 1;
+                    if (yv(mid + 1) - yv(mid) >= 0) {
+                        hi = mid;
+                    } else {
+                        lo = mid + 1;
+                    }
+                }
+                argmin = lo;
+            }
+            return argmin;
         }
 
         private double value(double v) {
-            return Corner.interpolate(x, y, v);
+            int n = x.length;
+            if (v <= x[0]) {
+                return yv(0);
+            }
+            if (v >= x[n - 1]) {
+                return yv(n - 1);
+            }
+            int lo = 0;
+            int hi = n - 1;
+            while (hi - lo > 1) {
+                int mid = (lo + hi) >>> 1;
+                if (x[mid] <= v) {
+                    lo = mid;
+                } else {
+                    hi = mid;
+                }
+            }
+            double ylo = yv(lo);
+            return ylo + (yv(hi) - ylo) * (v - x[lo]) / (x[hi] - x[lo]);
         }
 
         /** Where the last search ended. */
@@ -419,7 +516,7 @@ final class StoredGas {
                 hi = lo;
             }
             capIndex = hi;
-            capValue = hi + 1 < x.length ? y[hi] + (y[hi + 1] - y[hi]) * (cap - x[hi]) / (x[hi + 1] - x[hi]) : y[hi];
+            capValue = value(cap);
             capSeen = cap;
         }
 
@@ -434,16 +531,16 @@ final class StoredGas {
             int lo;
             int hi;
             int cap0 = capIndex;
-            if (cap0 > 0 && y[cap0] <= r * x[cap0]) {
+            if (cap0 > 0 && yv(cap0) <= r * x[cap0]) {
                 lo = cap0;
             } else {
                 int h = Math.min(Math.max(hint, 0), cap0);
-                if (h == 0 || y[h] <= r * x[h]) {
+                if (h == 0 || yv(h) <= r * x[h]) {
                     // the answer is at or above h: gallop up
                     lo = h;
                     int step = 1;
                     hi = Math.min(h + step, cap0);
-                    while (hi < cap0 && y[hi] <= r * x[hi]) {
+                    while (hi < cap0 && yv(hi) <= r * x[hi]) {
                         lo = hi;
                         step *= 2;
                         hi = Math.min(h + step, cap0);
@@ -453,7 +550,7 @@ final class StoredGas {
                     hi = h;
                     int step = 1;
                     lo = Math.max(h - step, 0);
-                    while (lo > 0 && !(y[lo] <= r * x[lo])) {
+                    while (lo > 0 && !(yv(lo) <= r * x[lo])) {
                         hi = lo;
                         step *= 2;
                         lo = Math.max(h - step, 0);
@@ -461,7 +558,7 @@ final class StoredGas {
                 }
                 while (hi - lo > 1) {
                     int mid = (lo + hi) >>> 1;
-                    if (y[mid] <= r * x[mid]) {
+                    if (yv(mid) <= r * x[mid]) {
                         lo = mid;
                     } else {
                         hi = mid;
@@ -476,10 +573,11 @@ final class StoredGas {
                 y1 = capValue;
             } else {
                 x1 = x[lo + 1];
-                y1 = y[lo + 1];
+                y1 = yv(lo + 1);
             }
-            double b = x1 > x[lo] ? (y1 - y[lo]) / (x1 - x[lo]) : 0;
-            double a = y[lo] - b * x[lo];
+            double ylo = yv(lo);
+            double b = x1 > x[lo] ? (y1 - ylo) / (x1 - x[lo]) : 0;
+            double a = ylo - b * x[lo];
             // a + b u = r u  →  u = a / (r − b)
             double root = r != b ? a / (r - b) : x[lo];
             return Math.min(Math.max(root, x[lo]), x1);
@@ -491,7 +589,7 @@ final class StoredGas {
          * d φ(F/d) ≤ room for some such F (docs/model.md, "Lower bounds", 5). +∞ if none.
          */
         double leastDuration(double room, double fLo, double fHi, double uMax) {
-            if (!(fLo > 0) || !(y[0] < 0)) {
+            if (!(fLo > 0) || !(yv(0) < 0)) {
                 // no clock progress to bound, or a cap that vents nothing at the lowest temperatures (then φ/u need not
                 // rise): nothing bounded here
                 return 0;
@@ -502,7 +600,7 @@ final class StoredGas {
             }
             // room < 0: the move must vent more than it makes; d ≥ max(fLo/u, room/φ(u)) with φ(u) < 0 and d ≤ fHi/u
             double uc = largestBelow(room / fLo, uMax);
-            double um = Math.min(x[argmin], uMax);
+            double um = Math.min(x[argmin()], uMax);
             double uh = largestBelow(room / fHi, uMax);
             double u = Math.min(Math.max(uc, um), uh);
             double p = value(u);
