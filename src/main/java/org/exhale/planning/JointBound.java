@@ -154,7 +154,6 @@ final class JointBound {
             this.storage = new StoredGas(bake, limits, comps, q, hotCeilingK, 2 * spread);
             // below the recipe's start temperature a move gains too little to matter: its hulls are coarse there
             storage.cold.resolveFrom(comps[q].rateConstant(startK));
-            storage.hot.resolveFrom(comps[q].rateConstant(startK));
             this.bins = storedBins;
             this.binWidth = storage.maxStoredMolPerM2 / storedBins;
             this.liveBins = new int[storedBins];
@@ -325,6 +324,10 @@ final class JointBound {
 
     Outcome compute() {
         int nl = levels.length;
+        if (storage != null && !storage.applicable()) {
+            // no finite pressure limit somewhere, or rate constants not convex in the clock's: nothing is claimed
+            return new Outcome(0, q, levels.length, cellCount, 0);
+        }
         binding = storage == null ? new int[levels.length] : null;
         double[] tau = new double[cellCount * bins];
         Arrays.fill(tau, Double.POSITIVE_INFINITY);
@@ -529,10 +532,8 @@ final class JointBound {
         return new Level(any, hottest);
     }
 
-    /** Whether at hot temperature t (just infeasible) the cold corner's margin is the smaller one. */
-    private boolean coldBinds(double t, int[] c, int[] cp, double clockFloor, double clockColdFloor) {
-        double[] floors = new double[k];
-        double[] coldFloors = new double[k];
+    /** The least f of each component on a move from cells c into cells cp, at the hot corner and at the cold one. */
+    private void floors(int[] c, int[] cp, double clockFloor, double clockColdFloor, double[] floors, double[] coldFloors) {
         floors[q] = clockFloor;
         coldFloors[q] = clockColdFloor;
         for (int o = 0; o < others.length; o++) {
@@ -540,6 +541,13 @@ final class JointBound {
             floors[j] = Math.min(cellF[o][c[o]], cellF[o][cp[o] + 1]);
             coldFloors[j] = Math.min(coldLowF(o, c[o], cp[o]), hiColdF[o][cp[o] + 1]);
         }
+    }
+
+    /** Whether at hot temperature t (just infeasible) the cold corner's margin is the smaller one. */
+    private boolean coldBinds(double t, int[] c, int[] cp, double clockFloor, double clockColdFloor) {
+        double[] floors = new double[k];
+        double[] coldFloors = new double[k];
+        floors(c, cp, clockFloor, clockColdFloor, floors, coldFloors);
         double hotK = Math.min(t, hotCeilingK);
         for (int j = 0; j < k; j++) {
             gen[j] = limits.gasifiable(j) * comps[j].rateConstant(hotK) * floors[j];
@@ -926,13 +934,7 @@ final class JointBound {
         }
         double[] floors = new double[k];
         double[] coldFloors = new double[k];
-        floors[q] = clockFloor;
-        coldFloors[q] = clockColdFloor;
-        for (int o = 0; o < others.length; o++) {
-            int j = others[o];
-            floors[j] = Math.min(cellF[o][c[o]], cellF[o][cp[o] + 1]);
-            coldFloors[j] = Math.min(coldLowF(o, c[o], cp[o]), hiColdF[o][cp[o] + 1]);
-        }
+        floors(c, cp, clockFloor, clockColdFloor, floors, coldFloors);
         Double g = memoPrev == null ? null : memoPrev.get(key);
         double t = LowerBound.highestFeasible(temp -> margin(temp, floors, coldFloors), hotCeilingK, floorK,
                 g == null ? Double.NaN : g);

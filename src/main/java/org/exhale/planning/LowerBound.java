@@ -126,7 +126,10 @@ public final class LowerBound {
         JointBound qsJoint = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, CELL_WIDTH, parts);
         JointBound.Outcome j = qsJoint.compute();
         if (!quasiSteady) {
-            list.add(storedGas(bake, limits, cap, spread));
+            Estimate stored = storedGas(bake, limits, cap, spread);
+            if (stored != null) {
+                list.add(stored);
+            }
         }
         list.add(new Estimate("joint", j.boundS(), quasiSteady, quasiSteady
                 ? "all components and both corners jointly, every monotone instantaneous limit, quasi-steady gas"
@@ -155,6 +158,9 @@ public final class LowerBound {
         TemperatureCap cap = new TemperatureCap(bake.recipeStartK(), bake.limits().ceilingK() - spread,
                 tool.maxRampUpKPerS(), bake.wafer().lagS());
         Estimate e = storedGas(bake, new InstantLimits(bake), cap, spread);
+        if (e == null) {
+            return base;
+        }
         java.util.List<Estimate> list = new java.util.ArrayList<>(base.estimates());
         list.removeIf(x -> x.name().equals(e.name()));
         list.add(e);
@@ -165,13 +171,16 @@ public final class LowerBound {
     /**
      * The joint programme with one corner's stored gas followed in bins: rigorous in any gas regime. Which corner, level
      * by level, is the one whose limits bind a coarse quasi-steady programme (any choice is rigorous; this one is only a
-     * guide, so it may be coarse).
+     * guide, so it may be coarse). Null where it does not apply.
      */
     private static Estimate storedGas(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread) {
         JointBound guide = new JointBound(bake, limits, cap, spread, STORED_CLOCK_DELTA, CELL_DELTA, GUIDE_CELL_WIDTH, 1);
         guide.compute();
         JointBound.Outcome js = new JointBound(bake, limits, cap, spread, STORED_CLOCK_DELTA, CELL_DELTA, CELL_WIDTH, 1,
                 STORED_BINS, guide.bindingCorners()).compute();
+        if (!(js.boundS() > 0)) {
+            return null;   // not applicable here (see JointBound): nothing claimed
+        }
         return new Estimate("joint_stored", js.boundS(), true,
                 "all components jointly; each corner's stored gas and venting followed (one corner per level); any gas regime");
     }

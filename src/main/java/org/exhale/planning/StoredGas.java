@@ -84,15 +84,10 @@ final class StoredGas {
         for (int i = 0; i < n; i++) {
             double lo = temps[i];
             double hi = temps[i + 1];
-            double kmax = 0;
-            for (int j = 0; j < k; j++) {
-                // D_eff rises with T (Knudsen √T, molecular T^1.75), 1/T falls, Π rises: each part at its worst end
-                kmax = Math.max(kmax, transport.effectiveDiffusivity(j, hi) / (R * lo * h)
-                        + transport.solidPermeability(j, hi) / h);
-            }
+            double kmax = VentBound.permeanceAtMost(transport, k, lo, hi, h);
             // P_adm between samples: the larger neighbour (as in VentBound)
             double p = Math.max(pAdm[i], pAdm[i + 1]) * (1 + 1e-9);
-            double f = p > 0 ? kmax * (1 + 1e-9) * p + transport.viscousConductance(lo, p) * p : 0;
+            double f = p > 0 ? kmax * p + transport.viscousConductance(lo, p) * p : 0;
             jMax = Math.max(jMax, f);
             jUp[i] = jMax;   // a non-decreasing upper bound of the flux on [LOWEST_K, hi]
             stored = Math.max(stored, p / (R * lo));
@@ -101,6 +96,11 @@ final class StoredGas {
         maxStoredMolPerM2 = storedPerVolume * vMax * (1 + 1e-12);
         hot = new Corner(comps, q, temps, jUp, 0, topK);
         cold = new Corner(comps, q, temps, jUp, offset, topK);
+    }
+
+    /** Whether the bound may use this: a finite admissible pressure everywhere and rate constants found convex in u. */
+    boolean applicable() {
+        return finite && hot.convex && cold.convex;
     }
 
     /**
@@ -113,6 +113,21 @@ final class StoredGas {
             v += heightM * freedWeight[j] * Math.min(1, Math.max(0, alphaHi[j]));
         }
         return storedPerVolume * v * (1 + 1e-12);
+    }
+
+    /** The last index i &lt; n − 1 with px[i] ≤ v, for px[0] &lt; v &lt; px[n − 1] (bisection). */
+    static int segment(double[] px, double v) {
+        int lo = 0;
+        int hi = px.length - 1;
+        while (hi - lo > 1) {
+            int mid = (lo + hi) >>> 1;
+            if (px[mid] <= v) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
     }
 
     /**
@@ -323,17 +338,8 @@ final class StoredGas {
             if (v >= px[n - 1]) {
                 return py[n - 1];
             }
-            int lo = 0;
-            int hi = n - 1;
-            while (hi - lo > 1) {
-                int mid = (lo + hi) >>> 1;
-                if (px[mid] <= v) {
-                    lo = mid;
-                } else {
-                    hi = mid;
-                }
-            }
-            return py[lo] + (py[hi] - py[lo]) * (v - px[lo]) / (px[hi] - px[lo]);
+            int lo = segment(px, v);
+            return py[lo] + (py[lo + 1] - py[lo]) * (v - px[lo]) / (px[lo + 1] - px[lo]);
         }
 
         /**
@@ -477,18 +483,9 @@ final class StoredGas {
             if (v >= x[n - 1]) {
                 return yv(n - 1);
             }
-            int lo = 0;
-            int hi = n - 1;
-            while (hi - lo > 1) {
-                int mid = (lo + hi) >>> 1;
-                if (x[mid] <= v) {
-                    lo = mid;
-                } else {
-                    hi = mid;
-                }
-            }
+            int lo = segment(x, v);
             double ylo = yv(lo);
-            return ylo + (yv(hi) - ylo) * (v - x[lo]) / (x[hi] - x[lo]);
+            return ylo + (yv(lo + 1) - ylo) * (v - x[lo]) / (x[lo + 1] - x[lo]);
         }
 
         /** Where the last search ended. */
@@ -502,20 +499,8 @@ final class StoredGas {
             if (cap == capSeen) {
                 return;
             }
-            int hi = x.length - 1;
-            if (cap < x[hi]) {
-                int lo = 0;
-                while (hi - lo > 1) {
-                    int mid = (lo + hi) >>> 1;
-                    if (x[mid] <= cap) {
-                        lo = mid;
-                    } else {
-                        hi = mid;
-                    }
-                }
-                hi = lo;
-            }
-            capIndex = hi;
+            int last = x.length - 1;
+            capIndex = cap >= x[last] ? last : cap <= x[0] ? 0 : segment(x, cap);
             capValue = value(cap);
             capSeen = cap;
         }

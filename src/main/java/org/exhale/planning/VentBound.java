@@ -126,6 +126,19 @@ final class VentBound {
         return u;
     }
 
+    /**
+     * An upper bound of every product's permeance on the temperature interval [lo, hi], raised against rounding: D_eff
+     * rises with T (Knudsen √T, molecular T^1.75), 1/T falls, Π rises, so each part is taken at its worst end.
+     */
+    static double permeanceAtMost(GasTransport transport, int products, double lo, double hi, double thicknessM) {
+        double kmax = 0;
+        for (int j = 0; j < products; j++) {
+            kmax = Math.max(kmax, transport.effectiveDiffusivity(j, hi) / (R * lo * thicknessM)
+                    + transport.solidPermeability(j, hi) / thicknessM);
+        }
+        return kmax * (1 + 1e-9);
+    }
+
     /** The highest Δp ≤ max_pressure at which the monotone limits hold at T (+∞ when none limits it). */
     static double admissiblePressure(InstantLimits limits, double temperatureK, double maxPressurePa) {
         if (limits.monotoneMarginAtPressure(temperatureK, 0) < 1) {
@@ -190,13 +203,7 @@ final class VentBound {
             for (int i = 0; i < n; i++) {
                 double lo = temps[i];
                 double hi = temps[i + 1];
-                double kmax = 0;
-                for (int j = 0; j < k; j++) {
-                    // D_eff rises with T (Knudsen √T, molecular T^1.75), 1/T falls, Π rises: each part at its worst end
-                    kmax = Math.max(kmax, transport.effectiveDiffusivity(j, hi) / (R * lo * h)
-                            + transport.solidPermeability(j, hi) / h);
-                }
-                kUp[i] = kmax * (1 + 1e-9);
+                kUp[i] = permeanceAtMost(transport, k, lo, hi, h);
                 // P_adm between samples: the larger neighbour (P_adm varies smoothly; see docs/model.md)
                 pUp[i] = Math.max(pAdm[i], pAdm[i + 1]) * (1 + 1e-9);
                 double f = flux(i, pUp[i]);
