@@ -456,11 +456,21 @@ final class JointBound {
         double[] endKin = new double[nb];
         double[] dv = new double[2 * nb - 1];
         double clockGas = limits.gasifiable(q) * (levels[i + 1] - levels[i]);
+        // the nodes earliest first: their arrivals come first, so that later nodes' moves that lower nothing are seen early
+        double[] start = new double[cellCount];
+        Integer[] order = new Integer[cellCount];
         for (int flat = 0; flat < cellCount; flat++) {
             double t0 = Double.POSITIVE_INFINITY;
             for (int m = 0; m < nb; m++) {
                 t0 = Math.min(t0, tau[flat * nb + m]);
             }
+            start[flat] = t0;
+            order[flat] = flat;
+        }
+        Arrays.sort(order, (x, y) -> Double.compare(start[x], start[y]));
+        for (int n = 0; n < cellCount; n++) {
+            int flat = order[n];
+            double t0 = start[flat];
             if (!(t0 < best) || t0 > HORIZON_S) {
                 continue;
             }
@@ -628,6 +638,50 @@ final class JointBound {
             }
             phiMemo.dv.put(memoKey, base);
         }
+        // a bin is dominated by a lower one that is no later (less gas stored, so more room, and an earlier start)
+        int live = 0;
+        double earliest = Double.POSITIVE_INFINITY;
+        for (int m = first; m <= last; m++) {
+            double t = tau[from * nb + m];
+            if (t < earliest) {
+                earliest = t;
+                liveBins[live++] = m;
+            }
+        }
+        // the stored gas at the end of the move is at most what the cavity holds at the move's highest conversions (the
+        // cold corner's conversions never exceed the hot one's)
+        double[] alphaHi = new double[k];
+        java.util.Arrays.fill(alphaHi, 1);
+        alphaHi[q] = levels[i + 1];
+        for (int o = 0; o < others.length; o++) {
+            alphaHi[others[o]] = cells[o][cp[o] + 1];
+        }
+        int top = (int) Math.min(nb - 1, Math.floor(storage.capacity(alphaHi) / binWidth));
+        // the second count below can only lengthen moves: where the first count's arrivals already lower no node (each
+        // no earlier than what the node holds, or than the least τ of a finishing node), it cannot change the result
+        // (the arrivals fall as the end bin rises, so first the latest threshold against the earliest arrival)
+        double threshold = Double.NEGATIVE_INFINITY;
+        for (int mp = 0; mp <= top; mp++) {
+            threshold = Math.max(threshold, next[to * nb + mp]);
+        }
+        threshold = Math.min(threshold, best);
+        double earliestEnd = Double.POSITIVE_INFINITY;
+        for (int l = 0; l < live; l++) {
+            int m = liveBins[l];
+            earliestEnd = Math.min(earliestEnd, Math.max(endKin[m], tau[from * nb + m] + base[m - top + nb - 1]));
+        }
+        boolean helps = false;
+        for (int mp = 0; mp <= top && !helps && earliestEnd < threshold; mp++) {
+            double e = Double.POSITIVE_INFINITY;
+            for (int l = 0; l < live; l++) {
+                int m = liveBins[l];
+                e = Math.min(e, Math.max(endKin[m], tau[from * nb + m] + base[m - mp + nb - 1]));
+            }
+            helps = e < Math.min(next[to * nb + mp], best);
+        }
+        if (!helps) {
+            return;
+        }
         // a second count of the others' gas: at the hot corner their least increments from the cells left and entered; at
         // the cold corner their hot reduced time θ_j ≥ θ_lo paid up front with λ_j = a_j/ρ_j(T_top) (any λ ≥ 0 is valid);
         // with nothing to pay it is the weaker of the two and left out
@@ -653,25 +707,6 @@ final class JointBound {
         } else {
             System.arraycopy(base, 0, dv, 0, base.length);
         }
-        // a bin is dominated by a lower one that is no later (less gas stored, so more room, and an earlier start)
-        int live = 0;
-        double earliest = Double.POSITIVE_INFINITY;
-        for (int m = first; m <= last; m++) {
-            double t = tau[from * nb + m];
-            if (t < earliest) {
-                earliest = t;
-                liveBins[live++] = m;
-            }
-        }
-        // the stored gas at the end of the move is at most what the cavity holds at the move's highest conversions (the
-        // cold corner's conversions never exceed the hot one's)
-        double[] alphaHi = new double[k];
-        java.util.Arrays.fill(alphaHi, 1);
-        alphaHi[q] = levels[i + 1];
-        for (int o = 0; o < others.length; o++) {
-            alphaHi[others[o]] = cells[o][cp[o] + 1];
-        }
-        int top = (int) Math.min(nb - 1, Math.floor(storage.capacity(alphaHi) / binWidth));
         for (int mp = 0; mp <= top; mp++) {
             double e = Double.POSITIVE_INFINITY;
             for (int l = 0; l < live; l++) {

@@ -354,8 +354,12 @@ final class StoredGas {
                 return new Phi(x, a, kappa, vent);
             }
             int n = x.length;
-            double[] hxs = new double[n + 1];
-            double[] hys = new double[n + 1];
+            if (hxs == null) {
+                hxs = new double[n + 1];
+                hys = new double[n + 1];
+            }
+            double[] hxs = this.hxs;
+            double[] hys = this.hys;
             int m = 0;
             // below the breakpoint `low` the integrand is at least its value there with the gas left out (γ ≥ 0, the
             // other terms fall with u): one flat step stands for that stretch, so the hull is built on fewer points
@@ -400,6 +404,10 @@ final class StoredGas {
             }
             return new Phi(Arrays.copyOf(hxs, m), Arrays.copyOf(hys, m));
         }
+
+        /** Scratch for the hulls of {@link #phi} (a corner serves one bound, on one thread). */
+        private double[] hxs;
+        private double[] hys;
 
         /** The first breakpoint at or above the clock's rate constant at the coolest temperature worth resolving. */
         private int low;
