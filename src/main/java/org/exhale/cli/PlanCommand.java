@@ -63,9 +63,22 @@ final class PlanCommand implements Callable<Integer> {
         OutputFolder out = new OutputFolder(dir, common.force).owns("recipe.csv", "recipe.yaml", "recipe.txt", "history.csv", "summary.json", "report.html", "charts");
         out.checkWritable();
         long t0 = System.nanoTime();
-        PlanResult plan = Planner.plan(cf.bake(), cf.tool());
-        double seconds = (System.nanoTime() - t0) / 1e9;
+        Planner.Pending pending = Planner.start(cf.bake(), cf.tool());
         List<String> warnings = new ArrayList<>(cf.warnings());
+        // while a stored-gas bound is still computing: the files that do not depend on it
+        PlanResult searched = pending.searched();
+        String csv = null;
+        String summary = null;
+        String yaml = null;
+        String history = null;
+        if (searched.feasible()) {
+            csv = RecipeCsvWriter.csv(searched.recipe());
+            summary = SummaryJsonWriter.toJson(SummaryJsonWriter.summary(searched.verification(), warnings));
+            yaml = RecipeCsvWriter.yaml(searched.recipe());
+            history = HistoryCsvWriter.write(searched.verification());
+        }
+        PlanResult plan = pending.finish();
+        double seconds = (pending.finishedAt() - t0) / 1e9;
         Map<String, Object> pj = planJson(plan, seconds);
         pj.put("overshoot_K", cf.tool().overshootK());
         pj.put("spread_K", cf.bake().wafer().spreadK());
@@ -74,13 +87,11 @@ final class PlanCommand implements Callable<Integer> {
         out.put("plan.json", planText);
         String sheet = null;
         if (plan.feasible()) {
-            String csv = RecipeCsvWriter.csv(plan.recipe());
-            String summary = SummaryJsonWriter.toJson(SummaryJsonWriter.summary(plan.verification(), warnings));
             sheet = RecipeSheet.of(planText, csv, summary).text(VersionProvider.version());
             out.put("recipe.csv", csv);
             out.put("recipe.txt", sheet);
-            out.put("recipe.yaml", RecipeCsvWriter.yaml(plan.recipe()));
-            out.put("history.csv", HistoryCsvWriter.write(plan.verification()));
+            out.put("recipe.yaml", yaml);
+            out.put("history.csv", history);
             out.put("summary.json", summary);
         }
         out.commit();

@@ -64,15 +64,56 @@ public final class Planner {
     }
 
     public static PlanResult plan(BakeCase bake, Tool tool) {
+        return start(bake, tool).finish();
+    }
+
+    /**
+     * Plans, and returns once the recipe is found and verified; where the gas is stored, the stored-gas bound may still
+     * be computing on its own thread ({@link Pending#finish()} waits for it). A caller can meanwhile prepare what does
+     * not depend on the bound.
+     */
+    public static Pending start(BakeCase bake, Tool tool) {
         Planner p = new Planner(bake, tool);
         PlanResult r = p.run();
-        if (p.storedBound == null) {
-            return r;
+        return new Pending(r, p.storedBound, System.nanoTime());
+    }
+
+    /** A verified plan whose lower bound may still be computing. */
+    public static final class Pending {
+        private final PlanResult searched;
+        private final java.util.concurrent.CompletableFuture<LowerBound.Result> bound;
+        private final long searchedAt;
+        private volatile long boundAt;
+
+        private Pending(PlanResult searched, java.util.concurrent.CompletableFuture<LowerBound.Result> bound, long searchedAt) {
+            this.searched = searched;
+            this.searchedAt = searchedAt;
+            this.bound = bound == null ? null : bound.thenApply(b -> {
+                boundAt = System.nanoTime();
+                return b;
+            });
         }
-        try {
-            return r.withLowerBound(p.storedBound.join());
-        } catch (java.util.concurrent.CompletionException e) {
-            throw e.getCause() instanceof RuntimeException re ? re : e;
+
+        /** When planning ended ({@link System#nanoTime()}): the later of the search and the bound; after {@link #finish()}. */
+        public long finishedAt() {
+            return Math.max(searchedAt, boundAt);
+        }
+
+        /** The recipe, its verification and everything but the stored-gas bound (the fast bounds only). */
+        public PlanResult searched() {
+            return searched;
+        }
+
+        /** The plan with every bound (waits for the stored-gas bound where one is computed). */
+        public PlanResult finish() {
+            if (bound == null) {
+                return searched;
+            }
+            try {
+                return searched.withLowerBound(bound.join());
+            } catch (java.util.concurrent.CompletionException e) {
+                throw e.getCause() instanceof RuntimeException re ? re : e;
+            }
         }
     }
 

@@ -456,14 +456,26 @@ final class StoredGas {
             if (y != null) {
                 return y[i];
             }
+            if (seen == null) {
+                seen = new double[x.length];
+                Arrays.fill(seen, Double.NaN);
+            }
+            double v = seen[i];
+            if (v == v) {
+                return v;
+            }
             double g = 0;
             for (int j = 0; j < a.length; j++) {
                 if (a[j] != 0) {
                     g += a[j] * kappa[j][i];
                 }
             }
+            seen[i] = g - vent[i];
             return g - vent[i];
         }
+
+        /** The lazily evaluated φ at the breakpoints asked for so far (NaN where not yet asked). */
+        private double[] seen;
 
         /** The breakpoint where φ is least (φ convex: the first whose next difference is not negative). */
         private int argmin() {
