@@ -45,6 +45,10 @@ final class BenchCommand implements Callable<Integer> {
     @Option(names = "--bound-repeats", defaultValue = "5", description = "Timed repetitions of each lower bound (default ${DEFAULT-VALUE}).")
     int boundRepeats;
 
+    @Option(names = "--cold-repeats", defaultValue = "5",
+            description = "Runs of 'exhale plan' on each demo case in a fresh JVM, interleaved, for the wall time with the JVM's start (0 for none; default ${DEFAULT-VALUE}).")
+    int coldRepeats;
+
     @Override
     public Integer call() {
         CaseFile porous = CaseYamlReader.read(data.resolve("porous-line.yaml"));
@@ -122,7 +126,57 @@ final class BenchCommand implements Callable<Integer> {
                     Double.isFinite(p.boundRatio()) ? String.format(Locale.ROOT, "%.3f", p.boundRatio()) : "-",
                     med.get("plan " + e.getKey()));
         }
+        coldPlans(List.of(data.resolve("porous-line.yaml"), data.resolve("dense-disc.yaml")));
         return Main.OK;
+    }
+
+    /**
+     * The wall time of {@code exhale plan} in a fresh JVM (start, reading, planning, writing), each case run
+     * {@link #coldRepeats} times, interleaved; with this JVM's java and class path, into a scratch folder deleted after.
+     */
+    private void coldPlans(List<Path> files) {
+        if (coldRepeats <= 0) {
+            return;
+        }
+        String javaBin = ProcessHandle.current().info().command().orElse("java");
+        String classPath = System.getProperty("java.class.path");
+        double[][] s = new double[files.size()][coldRepeats];
+        Path scratch;
+        try {
+            scratch = java.nio.file.Files.createTempDirectory("exhale-bench");
+            for (int i = 0; i < coldRepeats; i++) {
+                for (int c = 0; c < files.size(); c++) {
+                    Path out = scratch.resolve("plan-" + c + "-" + i);
+                    ProcessBuilder pb = new ProcessBuilder(javaBin, "-cp", classPath, Main.class.getName(), "plan",
+                            files.get(c).toString(), "-o", out.toString(), "--quiet")
+                            .redirectErrorStream(true).redirectOutput(ProcessBuilder.Redirect.DISCARD);
+                    long t0 = System.nanoTime();
+                    int code = pb.start().waitFor();
+                    s[c][i] = (System.nanoTime() - t0) / 1e9;
+                    if (code != Main.OK) {
+                        throw new IllegalStateException("exhale plan " + files.get(c) + " exited with " + code);
+                    }
+                }
+            }
+            try (var walk = java.nio.file.Files.walk(scratch)) {
+                for (Path p : walk.sorted(java.util.Comparator.reverseOrder()).toList()) {
+                    java.nio.file.Files.delete(p);
+                }
+            }
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException(e);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            return;
+        }
+        System.out.println();
+        System.out.printf(Locale.ROOT, "%-42s %10s %10s %10s%n", "'exhale plan' in a fresh JVM (s, wall)", "median", "min", "max");
+        for (int c = 0; c < files.size(); c++) {
+            double[] t = s[c].clone();
+            Arrays.sort(t);
+            System.out.printf(Locale.ROOT, "%-42s %10.2f %10.2f %10.2f%n", files.get(c).getFileName(), quantile(t, 0.5), t[0],
+                    t[t.length - 1]);
+        }
     }
 
     /**
