@@ -679,7 +679,7 @@ final class JointBound {
             }
             helps = e < Math.min(next[to * nb + mp], best);
         }
-        if (!helps) {
+        if (!helps && pruneMoves) {
             return;
         }
         // a second count of the others' gas: at the hot corner their least increments from the cells left and entered; at
@@ -723,6 +723,9 @@ final class JointBound {
         final java.util.HashMap<Long, double[]> dv = new java.util.HashMap<>();
         final java.util.HashMap<Long, StoredGas.Phi> phi = new java.util.HashMap<>();
     }
+
+    /** Whether moves that can lower no node are skipped (they change nothing; tests compare with them kept). */
+    boolean pruneMoves = true;
 
     /** Scratch: the bins of a node not dominated by a lower one. */
     private int[] liveBins;
