@@ -16,10 +16,16 @@ import com.fasterxml.jackson.databind.JsonNode;
 
 /** Charts of a planned recipe from plan.json. */
 final class PlanCharts {
+    /** The ride's bar: between the bound's light and the plan's dark tone, also in greyscale. */
+    private static final java.awt.Color RIDE_GREY = new java.awt.Color(0x8c, 0x93, 0x9b);
+
     private PlanCharts() {
     }
 
-    /** The plan's duration beside the lower bound no recipe within the limits can beat. */
+    /**
+     * The plan's duration beside the lower bound no recipe within the limits can beat and, where plan.json has it, the
+     * planner's closed-loop ride with unlimited steps between them (bound ≤ ride ≤ plan).
+     */
     static Optional<Figure> lowerBound(RunFolder f) {
         if (f.plan().isEmpty()) {
             return Optional.empty();
@@ -30,16 +36,22 @@ final class PlanCharts {
         }
         double plan = p.path("duration_s").asDouble() / 60;
         double bound = p.path("lower_bound_s").asDouble() / 60;
+        double ride = p.path("ride_s").isNumber() ? p.path("ride_s").asDouble() / 60 : Double.NaN;
+        boolean withRide = Double.isFinite(ride) && ride > 0;
         DefaultCategoryDataset d = new DefaultCategoryDataset();
         d.addValue(bound, "duration", "lower bound");
+        if (withRide) {
+            d.addValue(ride, "duration", "closed-loop ride");
+        }
         d.addValue(plan, "duration", "plan");
+        int planColumn = withRide ? 2 : 1;
         BarRenderer r = new BarRenderer() {
             private static final long serialVersionUID = 1L;
 
             @Override
             public java.awt.Paint getItemPaint(int row, int column) {
-                // the bound light, the plan dark: told apart in greyscale as well as by the axis label
-                return column == 0 ? ChartStyle.colour(7) : ChartStyle.colour(0);
+                // the bound light, the ride mid-grey, the plan dark: told apart in greyscale as well as by the axis label
+                return column == 0 ? ChartStyle.colour(7) : column == planColumn ? ChartStyle.colour(0) : RIDE_GREY;
             }
         };
         r.setBarPainter(new StandardBarPainter());
@@ -62,13 +74,16 @@ final class PlanCharts {
         plot.setRangeGridlinePaint(ChartStyle.GRID);
         ChartStyle.axis(x);
         ChartStyle.axis(y);
-        String ratio = bound > 0 ? "plan / bound = " + ReportText.sig(plan / bound, 3) : null;
+        String ratio = bound > 0 ? "plan / bound = " + ReportText.sig(plan / bound, 3)
+                + (withRide ? "; plan / ride = " + ReportText.sig(plan / ride, 4) : "") : null;
         JFreeChart c = ChartStyle.chart("Plan against the lower bound", plot, ReportText.label(f.caseName()), ratio);
         c.removeLegend();
         return Optional.of(new Figure("lower-bound", "Plan against the lower bound",
                 p.path("lower_bound_rigorous").asBoolean(false)
-                        ? "Duration of the planned recipe beside the shortest time any recipe within the limits could take."
-                        : "Duration of the planned recipe beside an estimated lower bound (not a guarantee).",
+                        ? "Duration of the planned recipe beside the shortest time any recipe within the limits could take"
+                        + (withRide ? " and the planner's closed-loop ride (unlimited steps)." : ".")
+                        : "Duration of the planned recipe beside an estimated lower bound (not a guarantee)"
+                        + (withRide ? " and the planner's closed-loop ride (unlimited steps)." : "."),
                 c));
     }
 }
