@@ -26,7 +26,8 @@ import picocli.CommandLine.Option;
         description = {"Times, side by side in one run, one simulation of each demo case (with and without the cap "
                 + "mechanics) and one plan of each, after a warm-up; prints the median, the quartiles and the ratios. "
                 + "Then the lower bounds of the demo cases and of the bench cases (data/bench), each marked rigorous or "
-                + "an estimate for the case's gas regime, with the median time to compute them. "
+                + "an estimate for the case's gas regime, with the median time to compute them; the plans' quality "
+                + "(bound, ride, plan); and 'exhale plan' on each demo case in fresh JVMs, for the wall time a user sees. "
                 + "The machines are noisy: compare figures from one run only."})
 final class BenchCommand implements Callable<Integer> {
     @Option(names = "--data", paramLabel = "DIR", defaultValue = "data/demo", description = "Folder of the demo cases.")
@@ -132,35 +133,53 @@ final class BenchCommand implements Callable<Integer> {
 
     /**
      * The wall time of {@code exhale plan} in a fresh JVM (start, reading, planning, writing), each case run
-     * {@link #coldRepeats} times, interleaved; with this JVM's java and class path, into a scratch folder deleted after.
+     * {@link #coldRepeats} times, interleaved; with this JVM's java, options and class path, into a scratch folder
+     * deleted after (kept, with the failing run's log, when a run fails).
      */
     private void coldPlans(List<Path> files) {
         if (coldRepeats <= 0) {
             return;
         }
         String javaBin = ProcessHandle.current().info().command().orElse("java");
+        List<String> jvmOptions = java.lang.management.ManagementFactory.getRuntimeMXBean().getInputArguments();
         String classPath = System.getProperty("java.class.path");
         double[][] s = new double[files.size()][coldRepeats];
         Path scratch;
         try {
             scratch = java.nio.file.Files.createTempDirectory("exhale-bench");
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException(e);
+        }
+        boolean failed = false;
+        try {
             for (int i = 0; i < coldRepeats; i++) {
                 for (int c = 0; c < files.size(); c++) {
                     Path out = scratch.resolve("plan-" + c + "-" + i);
-                    ProcessBuilder pb = new ProcessBuilder(javaBin, "-cp", classPath, Main.class.getName(), "plan",
-                            files.get(c).toString(), "-o", out.toString(), "--quiet")
-                            .redirectErrorStream(true).redirectOutput(ProcessBuilder.Redirect.DISCARD);
+                    Path log = scratch.resolve("plan-" + c + "-" + i + ".log");
+                    List<String> command = new ArrayList<>();
+                    command.add(javaBin);
+                    command.addAll(jvmOptions);
+                    command.addAll(List.of("-cp", classPath, Main.class.getName(), "plan", files.get(c).toString(), "-o",
+                            out.toString(), "--quiet"));
+                    ProcessBuilder pb = new ProcessBuilder(command).redirectErrorStream(true).redirectOutput(log.toFile());
                     long t0 = System.nanoTime();
-                    int code = pb.start().waitFor();
-                    s[c][i] = (System.nanoTime() - t0) / 1e9;
-                    if (code != Main.OK) {
-                        throw new IllegalStateException("exhale plan " + files.get(c) + " exited with " + code);
+                    Process process = pb.start();
+                    try {
+                        if (!process.waitFor(10, java.util.concurrent.TimeUnit.MINUTES)) {
+                            failed = true;
+                            throw new IllegalStateException("exhale plan " + files.get(c) + " took over 10 minutes; log in " + log);
+                        }
+                    } finally {
+                        if (process.isAlive()) {
+                            process.destroyForcibly();
+                        }
                     }
-                }
-            }
-            try (var walk = java.nio.file.Files.walk(scratch)) {
-                for (Path p : walk.sorted(java.util.Comparator.reverseOrder()).toList()) {
-                    java.nio.file.Files.delete(p);
+                    s[c][i] = (System.nanoTime() - t0) / 1e9;
+                    if (process.exitValue() != Main.OK) {
+                        failed = true;
+                        throw new IllegalStateException("exhale plan " + files.get(c) + " exited with " + process.exitValue()
+                                + "; log in " + log);
+                    }
                 }
             }
         } catch (java.io.IOException e) {
@@ -168,6 +187,16 @@ final class BenchCommand implements Callable<Integer> {
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             return;
+        } finally {
+            if (!failed) {
+                try (var walk = java.nio.file.Files.walk(scratch)) {
+                    for (Path p : walk.sorted(java.util.Comparator.reverseOrder()).toList()) {
+                        java.nio.file.Files.deleteIfExists(p);
+                    }
+                } catch (java.io.IOException e) {
+                    System.err.println("warning: could not delete the scratch folder " + scratch + ": " + e.getMessage());
+                }
+            }
         }
         System.out.println();
         System.out.printf(Locale.ROOT, "%-42s %10s %10s %10s%n", "'exhale plan' in a fresh JVM (s, wall)", "median", "min", "max");

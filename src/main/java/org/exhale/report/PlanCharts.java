@@ -17,7 +17,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 /** Charts of a planned recipe from plan.json. */
 final class PlanCharts {
     /** The ride's bar: between the bound's light and the plan's dark tone, also in greyscale. */
-    private static final java.awt.Color RIDE_GREY = new java.awt.Color(0x8c, 0x93, 0x9b);
+    private static final java.awt.Color RIDE_GREY = new java.awt.Color(0x62, 0x68, 0x6f);
 
     private PlanCharts() {
     }
