@@ -460,9 +460,8 @@ final class StoredGas {
                 seen = new double[x.length];
                 Arrays.fill(seen, Double.NaN);
             }
-            double v = seen[i];
-            if (v == v) {
-                return v;
+            if (!Double.isNaN(seen[i])) {
+                return seen[i];
             }
             double g = 0;
             for (int j = 0; j < a.length; j++) {
@@ -471,7 +470,7 @@ final class StoredGas {
                 }
             }
             seen[i] = g - vent[i];
-            return g - vent[i];
+            return seen[i];
         }
 
         /** The lazily evaluated φ at the breakpoints asked for so far (NaN where not yet asked). */
