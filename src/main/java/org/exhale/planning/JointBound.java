@@ -157,6 +157,10 @@ final class JointBound {
             this.bins = storedBins;
             this.binWidth = storage.maxStoredMolPerM2 / storedBins;
             this.liveBins = new int[storedBins];
+            this.landLo = new double[storedBins];
+            this.landHi = new double[storedBins];
+            this.land2Lo = new double[storedBins];
+            this.land2Hi = new double[storedBins];
             this.tracked = new int[levels.length];
             for (int i = 0; i < levels.length; i++) {
                 this.tracked[i] = tracked == null ? 0 : tracked[Math.min(i, tracked.length - 1)];
@@ -333,6 +337,13 @@ final class JointBound {
         Arrays.fill(tau, Double.POSITIVE_INFINITY);
         tau[0] = 0;
         double[] next = new double[cellCount * bins];
+        // with stored gas, each bin's label is affine in the stored gas: τ at the bin's top (above) and at its bottom (here)
+        if (storage != null) {
+            tauBottom = new double[cellCount * bins];
+            Arrays.fill(tauBottom, Double.POSITIVE_INFINITY);
+            tauBottom[0] = 0;
+            nextBottom = new double[cellCount * bins];
+        }
         java.util.HashMap<Long, Double> memoPrev = null;
         // H: an upper bound on the hot corner's temperature so far, over every move of a recipe whose path has run
         // through regular nodes only (docs/model.md, "Lower bounds", 2); at the start the wafer is at its setpoint
@@ -347,20 +358,25 @@ final class JointBound {
             // (the guess follows the last level's rise, so that a level is seldom evaluated twice)
             double guessK = Math.max(hotSoFar, lastHottest) + Math.max(GUESS_K, 1.5 * lastRise);
             if (storage != null && i > 0 && tracked[i] != tracked[i - 1]) {
-                // the newly followed corner's gas is only known to be ≥ 0: every node starts again from the lowest bin
+                // the newly followed corner's gas is only known to be ≥ 0: every node starts again from its earliest label
                 for (int flat = 0; flat < cellCount; flat++) {
                     double t = Double.POSITIVE_INFINITY;
                     for (int m = 0; m < bins; m++) {
                         t = Math.min(t, tau[flat * bins + m]);
-                        tau[flat * bins + m] = Double.POSITIVE_INFINITY;
                     }
-                    tau[flat * bins] = t;
+                    // (in every bin, so that each bin's label covers the recipes whose gas lies in it; the lowest
+                    // dominates the others)
+                    Arrays.fill(tau, flat * bins, (flat + 1) * bins, t);
+                    Arrays.fill(tauBottom, flat * bins, (flat + 1) * bins, t);
                 }
             }
             java.util.HashMap<Long, Double> memo;
             while (true) {
                 memo = new java.util.HashMap<>();
                 Arrays.fill(next, Double.POSITIVE_INFINITY);
+                if (nextBottom != null) {
+                    Arrays.fill(nextBottom, Double.POSITIVE_INFINITY);
+                }
                 Level lv = level(i, tau, next, guessK + SLACK_K, memo, memoPrev);
                 if (!lv.any) {
                     live = false;
@@ -382,6 +398,11 @@ final class JointBound {
             double[] swap = tau;
             tau = next;
             next = swap;
+            if (tauBottom != null) {
+                swap = tauBottom;
+                tauBottom = nextBottom;
+                nextBottom = swap;
+            }
         }
         // nodes at the top level: any recipe that reaches the target later crossed one of them
         for (double t : tau) {
@@ -453,7 +474,6 @@ final class JointBound {
         }
         int hotVotes = 0;
         int coldVotes = 0;
-        double[] endKin = new double[nb];
         double[] dv = new double[2 * nb - 1];
         double clockGas = limits.gasifiable(q) * (levels[i + 1] - levels[i]);
         // the nodes earliest first: their arrivals come first, so that later nodes' moves that lower nothing are seen early
@@ -521,7 +541,7 @@ final class JointBound {
                     } else {
                         storedMoves(i, c, cp, flat, to, tau, next, d * (1 - 1e-12), arrival, clockGas, fLo, fHi,
                                 comps[q].rateConstant(Math.min(adm, hotCeilingK)) * (1 + 1e-12), clockColdFloor[0],
-                                endKin, dv, phiMemo);
+                                dv, phiMemo);
                     }
                 }
                 // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
@@ -575,22 +595,27 @@ final class JointBound {
     }
 
     /**
-     * The arrivals of one move with one corner's stored gas followed in bins (docs/model.md, "Lower bounds", 5):
-     * leaving with S ≥ s_m at time τ_m or later and arriving with S' ≤ s_{m'+1}, the move must keep
-     * d φ(F/d) ≤ s_{m'+1} − s_m − c (c the gas counted exactly: the clock's increment at the hot corner), which
-     * takes at least {@link StoredGas.Phi#leastDuration}; the move also takes at least its kinetic duration
-     * {@code d} and ends no sooner than {@code arrival}.
+     * The arrivals of one move with one corner's stored gas followed in bins (docs/model.md, "Lower bounds", 5). A
+     * bin's label is affine in the stored gas S over the bin: no recipe crosses the node with S in [s_m, s_{m+1}]
+     * earlier than the line from τ at the bin's bottom ({@link #tauBottom}) to τ at its top ({@code tau}). A move from
+     * S to S' takes at least D(S' − S): the larger of its kinetic duration {@code d} and the least duration with room
+     * S' − S − c ({@link StoredGas.Phi#leastDuration}; c the gas counted exactly: the clock's increment at the hot
+     * corner). D falls and is convex in the room (the least d over a convex set — the perspective d φ(F/d) of the
+     * convex φ is jointly convex — as a function of the room); it is known at the bin differences. Over the span of
+     * S' − S a move from one bin into another covers, a secant of D from just beyond that span, extended into it, lies
+     * below D; with the source's affine label that gives an affine lower bound of the arrival over the landing bin
+     * (each source's best line at the bin's middle, or the constant of the most room and the earliest start). The
+     * least of such lines is concave, so the line between its values at the bin's ends lies below it: the landing
+     * label. The move also ends no sooner than {@code arrival}.
      */
     private void storedMoves(int i, int[] c, int[] cp, int from, int to, double[] tau, double[] next, double d,
                              double arrival, double clockGas, double fLo, double fHi, double uMax, double clockColdFloor,
-                             double[] endKin, double[] dv, LevelMemo phiMemo) {
+                             double[] dv, LevelMemo phiMemo) {
         int nb = bins;
         int first = -1;
         int last = -1;
         for (int m = 0; m < nb; m++) {
-            double t = tau[from * nb + m];
-            endKin[m] = Double.isFinite(t) ? Math.max(t + d, arrival) : Double.POSITIVE_INFINITY;
-            if (Double.isFinite(t)) {
+            if (Double.isFinite(tau[from * nb + m])) {
                 last = m;
                 if (first < 0) {
                     first = m;
@@ -646,14 +671,15 @@ final class JointBound {
             }
             phiMemo.dv.put(memoKey, base);
         }
-        // a bin is dominated by a lower one that is no later (less gas stored, so more room, and an earlier start)
+        // a bin is dominated by a lower one whose label at its bottom is no later than this one's at its top: every S of
+        // the lower bin is below every S of this one (more room) and no later, so the lower bin's arrivals bound this one's
         int live = 0;
-        double earliest = Double.POSITIVE_INFINITY;
+        double lowestBottom = Double.POSITIVE_INFINITY;
         for (int m = first; m <= last; m++) {
             double t = tau[from * nb + m];
-            if (t < earliest) {
-                earliest = t;
+            if (t < lowestBottom) {
                 liveBins[live++] = m;
+                lowestBottom = Math.min(lowestBottom, tauBottom[from * nb + m]);
             }
         }
         // the stored gas at the end of the move is at most what the cavity holds at the move's highest conversions (the
@@ -665,27 +691,13 @@ final class JointBound {
             alphaHi[others[o]] = cells[o][cp[o] + 1];
         }
         int top = (int) Math.min(nb - 1, Math.floor(storage.capacity(alphaHi) / binWidth));
-        // the second count below can only lengthen moves: where the first count's arrivals already lower no node (each
-        // no earlier than what the node holds, or than the least τ of a finishing node), it cannot change the result
-        // (the arrivals fall as the end bin rises, so first the latest threshold against the earliest arrival)
-        double threshold = Double.NEGATIVE_INFINITY;
-        for (int mp = 0; mp <= top; mp++) {
-            threshold = Math.max(threshold, next[to * nb + mp]);
-        }
-        threshold = Math.min(threshold, best);
-        double earliestEnd = Double.POSITIVE_INFINITY;
-        for (int l = 0; l < live; l++) {
-            int m = liveBins[l];
-            earliestEnd = Math.min(earliestEnd, Math.max(endKin[m], tau[from * nb + m] + base[m - top + nb - 1]));
-        }
+        // the first count's landing labels; the second count below can only lengthen moves, and its labels are taken only
+        // where no lower than the first's at both ends of a bin: where the first count's labels lower no node (or arrive no
+        // earlier than the least τ of a finishing node), the move can change nothing
+        landing(base, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, landLo, landHi);
         boolean helps = false;
-        for (int mp = 0; mp <= top && !helps && earliestEnd < threshold; mp++) {
-            double e = Double.POSITIVE_INFINITY;
-            for (int l = 0; l < live; l++) {
-                int m = liveBins[l];
-                e = Math.min(e, Math.max(endKin[m], tau[from * nb + m] + base[m - mp + nb - 1]));
-            }
-            helps = e < Math.min(next[to * nb + mp], best);
+        for (int mp = 0; mp <= top && !helps; mp++) {
+            helps = landHi[mp] < best && (landHi[mp] < next[to * nb + mp] || landLo[mp] < nextBottom[to * nb + mp]);
         }
         if (!helps && pruneMoves) {
             return;
@@ -707,23 +719,99 @@ final class JointBound {
         if (paid > 0) {
             StoredGas.Phi second = hotCorner ? hotPhis.computeIfAbsent(0L, z -> storage.hot.phi(new double[k], null))
                     : phiMemo.phi.computeIfAbsent(memoKey, z -> storage.cold.phi(a, lambda));
-            for (int diff = first - (nb - 1); diff <= last; diff++) {
+            for (int diff = -(nb - 1); diff <= nb - 1; diff++) {
                 double room = (1 - diff) * binWidth - exact;
                 dv[diff + nb - 1] = Math.max(base[diff + nb - 1],
                         second.leastDuration(room - paid, fLo, fHi, uMax) * (1 - 1e-12));
             }
-        } else {
-            System.arraycopy(base, 0, dv, 0, base.length);
+            landing(dv, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, land2Lo, land2Hi);
+            for (int mp = 0; mp <= top; mp++) {
+                if (land2Lo[mp] >= landLo[mp] && land2Hi[mp] >= landHi[mp]) {
+                    landLo[mp] = land2Lo[mp];
+                    landHi[mp] = land2Hi[mp];
+                }
+            }
         }
         for (int mp = 0; mp <= top; mp++) {
-            double e = Double.POSITIVE_INFINITY;
-            for (int l = 0; l < live; l++) {
-                int m = liveBins[l];
-                e = Math.min(e, Math.max(endKin[m], tau[from * nb + m] + dv[m - mp + nb - 1]));
-            }
             int idx = to * nb + mp;
-            next[idx] = Math.min(next[idx], e);
+            next[idx] = Math.min(next[idx], landHi[mp]);
+            nextBottom[idx] = Math.min(nextBottom[idx], landLo[mp]);
         }
+    }
+
+    /**
+     * The landing labels of a move from a node's live bins into bins 0..top (docs/model.md, "Lower bounds", 5): at each
+     * landing bin's bottom ({@code lo}) and top ({@code hi}), the least over the sources of each source's affine lower
+     * bound of the arrival. Source bin m's label runs from {@code bottom[offset + m]} at s_m to {@code topOf[offset + m]}
+     * at s_{m+1}. {@code dur} holds the least duration at the bin differences (index nb − k for S' − S = k w), which with
+     * the kinetic floor {@code d} gives D, falling and convex in S' − S; a secant is used only where the samples
+     * around it bear that out.
+     */
+    static void landing(double[] dur, double d, double arrival, int nb, int[] liveBins, int live, double[] topOf,
+                        double[] bottom, int offset, int top, double[] lo, double[] hi) {
+        for (int mp = 0; mp <= top; mp++) {
+            lo[mp] = Double.POSITIVE_INFINITY;
+            hi[mp] = Double.POSITIVE_INFINITY;
+        }
+        for (int l = 0; l < live; l++) {
+            int m = liveBins[l];
+            double r = topOf[offset + m];
+            double b = bottom[offset + m];
+            double rise = b - r;
+            for (int mp = 0; mp <= top; mp++) {
+                int k0 = mp - m;
+                // S = s_m + θw in the source bin, S' = s_mp + ηw in the landing bin: S' − S = (k0 + η − θ) w
+                double d1 = durationAt(dur, d, nb, k0 + 1);
+                // the most room (θ = 0, η = 1) and the earliest start (the source's top): a constant
+                double bestLo = Math.max(r + d1, arrival);
+                double bestHi = bestLo;
+                if (k0 + 2 <= nb && d1 < Double.POSITIVE_INFINITY) {
+                    // the secant of D over [k0 + 1, k0 + 2], extended down to k0 − 1: below D there (convex)
+                    double slope = d1 - durationAt(dur, d, nb, k0 + 2);
+                    if (slope >= 0 && below(d1 + slope, dur, d, nb, k0) && below(d1 + 2 * slope, dur, d, nb, k0 - 1)) {
+                        // r + rise(1 − θ) + d1 + slope(1 − η + θ), least over θ ∈ [0, 1]
+                        double g0 = slope >= rise ? b + d1 + slope : r + d1 + 2 * slope;
+                        double g1 = g0 - slope;
+                        g0 -= 1e-9 * Math.abs(g0);
+                        g1 -= 1e-9 * Math.abs(g1);
+                        if (g0 + g1 > bestLo + bestHi) {
+                            bestLo = g0;
+                            bestHi = g1;
+                        }
+                    }
+                }
+                if (k0 - 2 >= 2 - nb) {
+                    // the secant of D over [k0 − 2, k0 − 1], extended up to k0 + 1: below D there (convex)
+                    double da = durationAt(dur, d, nb, k0 - 2);
+                    double db = durationAt(dur, d, nb, k0 - 1);
+                    double drop = da - db;
+                    if (da < Double.POSITIVE_INFINITY && drop >= 0 && below(db - drop, dur, d, nb, k0)
+                            && below(db - 2 * drop, dur, d, nb, k0 + 1)) {
+                        // r + rise(1 − θ) + db − drop(1 + η − θ), least over θ ∈ [0, 1]
+                        double g0 = drop >= rise ? b + db - drop : r + db;
+                        double g1 = g0 - drop;
+                        g0 -= 1e-9 * Math.abs(g0);
+                        g1 -= 1e-9 * Math.abs(g1);
+                        if (g0 + g1 > bestLo + bestHi) {
+                            bestLo = g0;
+                            bestHi = g1;
+                        }
+                    }
+                }
+                lo[mp] = Math.min(lo[mp], bestLo);
+                hi[mp] = Math.min(hi[mp], bestHi);
+            }
+        }
+    }
+
+    /** D at the bin difference k (S' − S = k w): the larger of the kinetic floor and the least duration with that room. */
+    private static double durationAt(double[] dur, double d, int nb, int k) {
+        return Math.max(d, dur[nb - Math.max(k, 2 - nb)]);
+    }
+
+    /** Whether a secant's extension is at or below the sample of D at k (true where k lies beyond the samples). */
+    private static boolean below(double v, double[] dur, double d, int nb, int k) {
+        return k < 2 - nb || k > nb || v <= durationAt(dur, d, nb, k) * (1 + 1e-9);
     }
 
     /** Per level: the least durations by bin difference, and the cold corner's second φ, by gas weights. */
@@ -737,6 +825,14 @@ final class JointBound {
 
     /** Scratch: the bins of a node not dominated by a lower one. */
     private int[] liveBins;
+    /** Scratch: a move's landing labels, at each bin's bottom and top, by the first count and by the second. */
+    private double[] landLo;
+    private double[] landHi;
+    private double[] land2Lo;
+    private double[] land2Hi;
+    /** With stored gas: each node and bin's label at the bin's bottom (the top's is in τ), this level's and the next's. */
+    private double[] tauBottom;
+    private double[] nextBottom;
     /** The hot corner's φ by gas weights (they depend on the cells only), for every level. */
     private final java.util.HashMap<Long, StoredGas.Phi> hotPhis = new java.util.HashMap<>();
 

@@ -67,9 +67,11 @@ public final class LowerBound {
     static final double CELL_WIDTH = 0.01;
     /**
      * The stored-gas joint bound: bins of the followed corner's stored gas, its clock step, and the cells of the coarse
-     * quasi-steady guide (measured on the dense demo: 16 / 24 / 32 bins 206.9 / 208.0 / 208.5 min).
+     * quasi-steady guide (measured on the dense demo with affine labels per bin: 6 / 8 / 12 / 16 / 32 bins
+     * 208.1 / 209.0 / 209.7 / 209.8 / 209.9 min in 0.6 / 0.8 / 1.3 / 2.0 / 6.5 s; with one value per bin, which lets each
+     * move gain up to a bin of free storage, 16 / 32 / 64 bins gave 206.8 / 208.3 / 209.1).
      */
-    static final int STORED_BINS = 16;
+    static final int STORED_BINS = 8;
     static final double STORED_CLOCK_DELTA = 0.1;
     static final double GUIDE_CELL_WIDTH = 0.03;
     /** Parts of each clock level with several components (each with its own floors). */
