@@ -161,6 +161,7 @@ final class JointBound {
             this.landHi = new double[storedBins];
             this.land2Lo = new double[storedBins];
             this.land2Hi = new double[storedBins];
+            this.landScratch = new double[4][2 * storedBins - 1];
             this.tracked = new int[levels.length];
             for (int i = 0; i < levels.length; i++) {
                 this.tracked[i] = tracked == null ? 0 : tracked[Math.min(i, tracked.length - 1)];
@@ -691,10 +692,35 @@ final class JointBound {
             alphaHi[others[o]] = cells[o][cp[o] + 1];
         }
         int top = (int) Math.min(nb - 1, Math.floor(storage.capacity(alphaHi) / binWidth));
+        // every landing label is at least the least source label plus D's least sample (the most room): where that is
+        // no earlier than what every landing bin holds at both ends, or than the least τ of a finishing node, the move
+        // can change nothing
+        double threshold = Double.NEGATIVE_INFINITY;
+        for (int mp = 0; mp <= top; mp++) {
+            threshold = Math.max(threshold, Math.max(next[to * nb + mp], nextBottom[to * nb + mp]));
+        }
+        threshold = Math.min(threshold, best);
+        double leastSource = Double.POSITIVE_INFINITY;
+        for (int l = 0; l < live; l++) {
+            leastSource = Math.min(leastSource, tau[from * nb + liveBins[l]]);
+        }
+        // (a label from the secant of [k − 2, k − 1] extended to k + 1 is at least the source's top plus that extension)
+        double floor = Math.max(d, base[0]);
+        for (int k = 2 - nb + 2; k <= nb; k++) {
+            double da = Math.max(d, base[nb - (k - 2)]);
+            double db = Math.max(d, base[nb - (k - 1)]);
+            if (da < Double.POSITIVE_INFINITY) {
+                floor = Math.min(floor, 3 * db - 2 * da);
+            }
+        }
+        double earliest = leastSource + floor;
+        if (earliest - 1e-8 * Math.abs(earliest) >= threshold && pruneMoves) {
+            return;
+        }
         // the first count's landing labels; the second count below can only lengthen moves, and its labels are taken only
         // where no lower than the first's at both ends of a bin: where the first count's labels lower no node (or arrive no
         // earlier than the least τ of a finishing node), the move can change nothing
-        landing(base, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, landLo, landHi);
+        landing(base, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, landLo, landHi, landScratch);
         boolean helps = false;
         for (int mp = 0; mp <= top && !helps; mp++) {
             helps = landHi[mp] < best && (landHi[mp] < next[to * nb + mp] || landLo[mp] < nextBottom[to * nb + mp]);
@@ -724,7 +750,7 @@ final class JointBound {
                 dv[diff + nb - 1] = Math.max(base[diff + nb - 1],
                         second.leastDuration(room - paid, fLo, fHi, uMax) * (1 - 1e-12));
             }
-            landing(dv, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, land2Lo, land2Hi);
+            landing(dv, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, land2Lo, land2Hi, landScratch);
             for (int mp = 0; mp <= top; mp++) {
                 if (land2Lo[mp] >= landLo[mp] && land2Hi[mp] >= landHi[mp]) {
                     landLo[mp] = land2Lo[mp];
@@ -749,9 +775,45 @@ final class JointBound {
      */
     static void landing(double[] dur, double d, double arrival, int nb, int[] liveBins, int live, double[] topOf,
                         double[] bottom, int offset, int top, double[] lo, double[] hi) {
+        landing(dur, d, arrival, nb, liveBins, live, topOf, bottom, offset, top, lo, hi, new double[4][2 * nb - 1]);
+    }
+
+    /** {@link #landing}, with scratch arrays (four of 2 nb − 1). */
+    private static void landing(double[] dur, double d, double arrival, int nb, int[] liveBins, int live, double[] topOf,
+                                double[] bottom, int offset, int top, double[] lo, double[] hi, double[][] scratch) {
         for (int mp = 0; mp <= top; mp++) {
             lo[mp] = Double.POSITIVE_INFINITY;
             hi[mp] = Double.POSITIVE_INFINITY;
+        }
+        // per bin difference k0 = mp − m (index k0 + nb − 1): D at k0 + 1, and the two secants' parameters (NaN: not used)
+        double[] d1s = scratch[0];
+        double[] slopes = scratch[1];
+        double[] dbs = scratch[2];
+        double[] drops = scratch[3];
+        for (int k0 = 1 - nb; k0 <= nb - 1; k0++) {
+            int x = k0 + nb - 1;
+            double d1 = durationAt(dur, d, nb, k0 + 1);
+            d1s[x] = d1;
+            slopes[x] = Double.NaN;
+            if (k0 + 2 <= nb && d1 < Double.POSITIVE_INFINITY) {
+                // the secant of D over [k0 + 1, k0 + 2], extended down to k0 − 1: below D there (convex)
+                double slope = d1 - durationAt(dur, d, nb, k0 + 2);
+                if (slope >= 0 && below(d1 + slope, dur, d, nb, k0) && below(d1 + 2 * slope, dur, d, nb, k0 - 1)) {
+                    slopes[x] = slope;
+                }
+            }
+            drops[x] = Double.NaN;
+            if (k0 - 2 >= 2 - nb) {
+                // the secant of D over [k0 − 2, k0 − 1], extended up to k0 + 1: below D there (convex)
+                double da = durationAt(dur, d, nb, k0 - 2);
+                double db = durationAt(dur, d, nb, k0 - 1);
+                double drop = da - db;
+                if (da < Double.POSITIVE_INFINITY && drop >= 0 && below(db - drop, dur, d, nb, k0)
+                        && below(db - 2 * drop, dur, d, nb, k0 + 1)) {
+                    dbs[x] = db;
+                    drops[x] = drop;
+                }
+            }
         }
         for (int l = 0; l < live; l++) {
             int m = liveBins[l];
@@ -759,47 +821,43 @@ final class JointBound {
             double b = bottom[offset + m];
             double rise = b - r;
             for (int mp = 0; mp <= top; mp++) {
-                int k0 = mp - m;
+                int x = mp - m + nb - 1;
                 // S = s_m + θw in the source bin, S' = s_mp + ηw in the landing bin: S' − S = (k0 + η − θ) w
-                double d1 = durationAt(dur, d, nb, k0 + 1);
+                double d1 = d1s[x];
                 // the most room (θ = 0, η = 1) and the earliest start (the source's top): a constant
                 double bestLo = Math.max(r + d1, arrival);
                 double bestHi = bestLo;
-                if (k0 + 2 <= nb && d1 < Double.POSITIVE_INFINITY) {
-                    // the secant of D over [k0 + 1, k0 + 2], extended down to k0 − 1: below D there (convex)
-                    double slope = d1 - durationAt(dur, d, nb, k0 + 2);
-                    if (slope >= 0 && below(d1 + slope, dur, d, nb, k0) && below(d1 + 2 * slope, dur, d, nb, k0 - 1)) {
-                        // r + rise(1 − θ) + d1 + slope(1 − η + θ), least over θ ∈ [0, 1]
-                        double g0 = slope >= rise ? b + d1 + slope : r + d1 + 2 * slope;
-                        double g1 = g0 - slope;
-                        g0 -= 1e-9 * Math.abs(g0);
-                        g1 -= 1e-9 * Math.abs(g1);
-                        if (g0 + g1 > bestLo + bestHi) {
-                            bestLo = g0;
-                            bestHi = g1;
-                        }
+                double slope = slopes[x];
+                if (slope == slope) {
+                    // r + rise(1 − θ) + d1 + slope(1 − η + θ), least over θ ∈ [0, 1]
+                    double g0 = slope >= rise ? b + d1 + slope : r + d1 + 2 * slope;
+                    double g1 = g0 - slope;
+                    g0 -= 1e-9 * Math.abs(g0);
+                    g1 -= 1e-9 * Math.abs(g1);
+                    if (g0 + g1 > bestLo + bestHi) {
+                        bestLo = g0;
+                        bestHi = g1;
                     }
                 }
-                if (k0 - 2 >= 2 - nb) {
-                    // the secant of D over [k0 − 2, k0 − 1], extended up to k0 + 1: below D there (convex)
-                    double da = durationAt(dur, d, nb, k0 - 2);
-                    double db = durationAt(dur, d, nb, k0 - 1);
-                    double drop = da - db;
-                    if (da < Double.POSITIVE_INFINITY && drop >= 0 && below(db - drop, dur, d, nb, k0)
-                            && below(db - 2 * drop, dur, d, nb, k0 + 1)) {
-                        // r + rise(1 − θ) + db − drop(1 + η − θ), least over θ ∈ [0, 1]
-                        double g0 = drop >= rise ? b + db - drop : r + db;
-                        double g1 = g0 - drop;
-                        g0 -= 1e-9 * Math.abs(g0);
-                        g1 -= 1e-9 * Math.abs(g1);
-                        if (g0 + g1 > bestLo + bestHi) {
-                            bestLo = g0;
-                            bestHi = g1;
-                        }
+                double drop = drops[x];
+                if (drop == drop) {
+                    // r + rise(1 − θ) + db − drop(1 + η − θ), least over θ ∈ [0, 1]
+                    double db = dbs[x];
+                    double g0 = drop >= rise ? b + db - drop : r + db;
+                    double g1 = g0 - drop;
+                    g0 -= 1e-9 * Math.abs(g0);
+                    g1 -= 1e-9 * Math.abs(g1);
+                    if (g0 + g1 > bestLo + bestHi) {
+                        bestLo = g0;
+                        bestHi = g1;
                     }
                 }
-                lo[mp] = Math.min(lo[mp], bestLo);
-                hi[mp] = Math.min(hi[mp], bestHi);
+                if (bestLo < lo[mp]) {
+                    lo[mp] = bestLo;
+                }
+                if (bestHi < hi[mp]) {
+                    hi[mp] = bestHi;
+                }
             }
         }
     }
@@ -830,6 +888,7 @@ final class JointBound {
     private double[] landHi;
     private double[] land2Lo;
     private double[] land2Hi;
+    private double[][] landScratch;
     /** With stored gas: each node and bin's label at the bin's bottom (the top's is in τ), this level's and the next's. */
     private double[] tauBottom;
     private double[] nextBottom;
