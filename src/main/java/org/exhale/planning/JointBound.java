@@ -353,12 +353,30 @@ final class JointBound {
         double lastRise = 0;
         best = Double.POSITIVE_INFINITY;
         boolean live = true;
+        // with stored gas, where the followed corner changes, the corner left is still followed for a while beside it (the
+        // secondary programme), and after every level each programme's nodes are raised to the other's least τ in the
+        // same cell: both are lower bounds on the same crossing
+        double[] tau2 = null;
+        double[] tau2Bottom = null;
+        double[] next2 = null;
+        double[] next2Bottom = null;
+        int corner2 = -1;
+        int until2 = -1;
         for (int i = 0; i + 1 < nl && live; i++) {
+            followed = tracked == null ? 0 : tracked[i];
             // guess a bound G on the hot corner over this level's moves, evaluate them with the cold corner bounded through
             // ρ(G + slack), and accept the level only if no move's admissible temperature exceeds G (else guess again)
             // (the guess follows the last level's rise, so that a level is seldom evaluated twice)
             double guessK = Math.max(hotSoFar, lastHottest) + Math.max(GUESS_K, 1.5 * lastRise);
             if (storage != null && i > 0 && tracked[i] != tracked[i - 1]) {
+                if (lockLevels > 0) {
+                    tau2 = tau.clone();
+                    tau2Bottom = tauBottom.clone();
+                    next2 = new double[tau.length];
+                    next2Bottom = new double[tau.length];
+                    corner2 = tracked[i - 1];
+                    until2 = i + lockLevels;
+                }
                 // the newly followed corner's gas is only known to be ≥ 0: every node starts again from its earliest label
                 for (int flat = 0; flat < cellCount; flat++) {
                     double t = Double.POSITIVE_INFINITY;
@@ -372,6 +390,7 @@ final class JointBound {
                 }
             }
             java.util.HashMap<Long, Double> memo;
+            double acceptedK = Double.NaN;
             while (true) {
                 memo = new java.util.HashMap<>();
                 Arrays.fill(next, Double.POSITIVE_INFINITY);
@@ -384,6 +403,7 @@ final class JointBound {
                     break;
                 }
                 if (lv.hottest <= guessK || guessK >= hotCeilingK) {
+                    acceptedK = guessK + SLACK_K;
                     lastRise = Math.max(0, lv.hottest - lastHottest);
                     hotSoFar = Math.max(hotSoFar, lv.hottest);
                     lastHottest = lv.hottest;
@@ -394,6 +414,35 @@ final class JointBound {
             }
             if (!live) {
                 break;
+            }
+            if (tau2 != null) {
+                // the secondary programme's level, with the hot corner bounded as the primary's accepted level
+                Arrays.fill(next2, Double.POSITIVE_INFINITY);
+                Arrays.fill(next2Bottom, Double.POSITIVE_INFINITY);
+                double[] keepBottom = tauBottom;
+                double[] keepNextBottom = nextBottom;
+                tauBottom = tau2Bottom;
+                nextBottom = next2Bottom;
+                followed = corner2;
+                secondary = true;
+                level(i, tau2, next2, acceptedK, memo, memoPrev);
+                secondary = false;
+                followed = tracked[i];
+                tauBottom = keepBottom;
+                nextBottom = keepNextBottom;
+                double[] least = leastByCell(next);
+                double[] least2 = leastByCell(next2);
+                raise(next, nextBottom, least2);
+                raise(next2, next2Bottom, least);
+                double[] swap = tau2;
+                tau2 = next2;
+                next2 = swap;
+                swap = tau2Bottom;
+                tau2Bottom = next2Bottom;
+                next2Bottom = swap;
+                if (i + 1 >= until2) {
+                    tau2 = null;
+                }
             }
             memoPrev = memo;
             double[] swap = tau;
@@ -411,6 +460,45 @@ final class JointBound {
         }
         return new Outcome(best > HORIZON_S ? Double.POSITIVE_INFINITY : best, q, levels.length, cellCount, evaluations);
     }
+
+    /** Each cell's least τ over its bins. */
+    private double[] leastByCell(double[] t) {
+        double[] out = new double[cellCount];
+        for (int flat = 0; flat < cellCount; flat++) {
+            double v = Double.POSITIVE_INFINITY;
+            for (int m = 0; m < bins; m++) {
+                v = Math.min(v, t[flat * bins + m]);
+            }
+            out[flat] = v;
+        }
+        return out;
+    }
+
+    /**
+     * Raises each bin's label to a cell's least τ from the other programme where that is later: the label becomes the
+     * flat line at that τ where it lies above the label's middle (the larger of a line and a constant is not a line;
+     * either alone is a valid lower bound).
+     */
+    private void raise(double[] top, double[] bottom, double[] least) {
+        for (int flat = 0; flat < cellCount; flat++) {
+            double v = least[flat];
+            for (int m = 0; m < bins; m++) {
+                int idx = flat * bins + m;
+                if (v > top[idx] && v > 0.5 * (top[idx] + bottom[idx])) {
+                    top[idx] = v;
+                    bottom[idx] = v;
+                }
+            }
+        }
+    }
+
+    /** With stored gas: the corner followed by the programme being evaluated (0 hot, 1 cold). */
+    private int followed;
+    /** Whether the programme being evaluated is the secondary one (its finishing nodes leave the bound alone). */
+    private boolean secondary;
+    /** Levels for which the corner left at a change of the followed corner is still followed beside the new one. */
+    int lockLevels = LOCK_LEVELS;
+    static final int LOCK_LEVELS = 8;
 
     /** How far above the last level's hottest move the next level's bound is first guessed [K]. */
     private static final double GUESS_K = 1;
@@ -503,7 +591,9 @@ final class JointBound {
             // could the target be reached during a move out of this node? (the others can advance at most
             // ρ_j(hottest) ΔF_q in reduced time while the clock rises to the next level)
             if (capable(i, c, fHi)) {
-                best = Math.min(best, t0);
+                if (!secondary) {
+                    best = Math.min(best, t0);
+                }
                 continue;
             }
             // landing cells c' ≥ c, dimension by dimension while the move can still be made
@@ -626,7 +716,7 @@ final class JointBound {
         if (first < 0) {
             return;
         }
-        boolean hotCorner = tracked[i] == 0;
+        boolean hotCorner = followed == 0;
         // the gas weights a_j = n0_j × (least f_j) of the followed corner over the move, memoised by what they depend on
         long key = hotCorner ? 1 : 2;
         double[] a = new double[k];
