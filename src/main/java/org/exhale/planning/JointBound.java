@@ -796,9 +796,9 @@ final class JointBound {
         }
         // (a label from the secant of [k − 2, k − 1] extended to k + 1 is at least the source's top plus that extension)
         double floor = Math.max(d, base[0]);
-        for (int k = 2 - nb + 2; k <= nb; k++) {
-            double da = Math.max(d, base[nb - (k - 2)]);
-            double db = Math.max(d, base[nb - (k - 1)]);
+        for (int k0 = 4 - nb; k0 <= nb - 1; k0++) {
+            double da = Math.max(d, base[nb - (k0 - 2)]);
+            double db = Math.max(d, base[nb - (k0 - 1)]);
             if (da < Double.POSITIVE_INFINITY) {
                 floor = Math.min(floor, 3 * db - 2 * da);
             }

@@ -154,6 +154,12 @@ final class StoredGas {
             while (n < temps.length && temps[n] + offset <= topK + 1e-9) {
                 n++;
             }
+            // and one point at or above the top, so that φ is its convex self (not held flat past its last breakpoint)
+            // up to the hottest rate a move may have: the least duration is then convex in the room, which the
+            // programme's affine bin labels rely on
+            if (n < temps.length) {
+                n++;
+            }
             n = Math.max(n, 2);
             double[] hotT = new double[n];
             double[] u = new double[n];

@@ -12,8 +12,9 @@ import org.junit.jupiter.api.Test;
  * against the arrivals minimised directly: for a closed-form convex, falling duration D (not only its samples at the
  * bin differences) and random affine source labels, the least of E_m(S) + D(S' − S) over the source bins' S (a convex
  * function of S, minimised by golden-section search to 1e-12 of a bin) at 41 points S' of each landing bin. The
- * labels may be no later than that anywhere (a check of the secant extensions and of the least over θ; from memory,
- * unconfirmed: a secant of a convex function lies below it outside its own interval), and should recover most of
+ * labels may be no later than that anywhere (a check of the secant extensions and of the least over θ; that a secant
+ * of a convex function lies below it outside its own interval is the three-chord lemma: common practice, no source),
+ * and should recover most of
  * what one value per bin gave away.
  */
 class AffineLabelsTest {
