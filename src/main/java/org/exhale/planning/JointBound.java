@@ -162,6 +162,7 @@ final class JointBound {
             this.land2Lo = new double[storedBins];
             this.land2Hi = new double[storedBins];
             this.landScratch = new double[4][2 * storedBins - 1];
+            this.landHelps = new boolean[storedBins];
             this.tracked = new int[levels.length];
             for (int i = 0; i < levels.length; i++) {
                 this.tracked[i] = tracked == null ? 0 : tracked[Math.min(i, tracked.length - 1)];
@@ -498,7 +499,7 @@ final class JointBound {
     private boolean secondary;
     /** Levels for which the corner left at a change of the followed corner is still followed beside the new one. */
     int lockLevels = LOCK_LEVELS;
-    static final int LOCK_LEVELS = 8;
+    static final int LOCK_LEVELS = 5;
 
     /** How far above the last level's hottest move the next level's bound is first guessed [K]. */
     private static final double GUESS_K = 1;
@@ -751,15 +752,24 @@ final class JointBound {
         if (base == null) {
             StoredGas.Phi phi = hotCorner ? hotPhis.computeIfAbsent(memoKey, z -> storage.hot.phi(a, null))
                     : storage.cold.phi(a, null);
-            base = new double[2 * nb - 1];
+            // (one slot more: the least extension 3 D(k0 − 1) − 2 D(k0 − 2) of a secant, for the quick test below)
+            base = new double[2 * nb];
             for (int diff = -(nb - 1); diff <= nb - 1; diff++) {
                 base[diff + nb - 1] = phi.leastDuration((1 - diff) * binWidth - exactGas, fLo, fHi, uMax) * (1 - 1e-12);
             }
             // more room never takes longer (the least duration falls as the room grows); made exact against rounding by
-            // lowering a duration to any with less room (only lowers the bound), so the quick test below may rely on it
-            for (int x = base.length - 2; x >= 0; x--) {
+            // lowering a duration to any with less room (only lowers the bound)
+            for (int x = 2 * nb - 3; x >= 0; x--) {
                 base[x] = Math.min(base[x], base[x + 1]);
             }
+            double least = base[0];
+            for (int k0 = 4 - nb; k0 <= nb - 1; k0++) {
+                double da = base[nb - (k0 - 2)];
+                if (da < Double.POSITIVE_INFINITY) {
+                    least = Math.min(least, 3 * base[nb - (k0 - 1)] - 2 * da);
+                }
+            }
+            base[2 * nb - 1] = least;
             phiMemo.dv.put(memoKey, base);
         }
         // a bin is dominated by a lower one whose label at its bottom is no later than this one's at its top: every S of
@@ -794,15 +804,9 @@ final class JointBound {
         for (int l = 0; l < live; l++) {
             leastSource = Math.min(leastSource, tau[from * nb + liveBins[l]]);
         }
-        // (a label from the secant of [k − 2, k − 1] extended to k + 1 is at least the source's top plus that extension)
-        double floor = Math.max(d, base[0]);
-        for (int k0 = 4 - nb; k0 <= nb - 1; k0++) {
-            double da = Math.max(d, base[nb - (k0 - 2)]);
-            double db = Math.max(d, base[nb - (k0 - 1)]);
-            if (da < Double.POSITIVE_INFINITY) {
-                floor = Math.min(floor, 3 * db - 2 * da);
-            }
-        }
+        // (a label from the secant of [k0 − 2, k0 − 1] extended to k0 + 1 is at least the source's top plus that extension,
+        // 3 D(k0 − 1) − 2 D(k0 − 2), which the same with the samples before the kinetic floor bounds from below)
+        double floor = Math.min(Math.max(d, base[0]), base[2 * nb - 1]);
         double earliest = leastSource + floor;
         if (earliest - 1e-8 * Math.abs(earliest) >= threshold && pruneMoves) {
             return;
@@ -810,10 +814,11 @@ final class JointBound {
         // the first count's landing labels; the second count below can only lengthen moves, and its labels are taken only
         // where no lower than the first's at both ends of a bin: where the first count's labels lower no node (or arrive no
         // earlier than the least τ of a finishing node), the move can change nothing
-        landing(base, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, landLo, landHi, landScratch);
+        landing(base, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, landLo, landHi, landScratch, null);
         boolean helps = false;
-        for (int mp = 0; mp <= top && !helps; mp++) {
-            helps = landHi[mp] < best && (landHi[mp] < next[to * nb + mp] || landLo[mp] < nextBottom[to * nb + mp]);
+        for (int mp = 0; mp <= top; mp++) {
+            landHelps[mp] = landHi[mp] < best && (landHi[mp] < next[to * nb + mp] || landLo[mp] < nextBottom[to * nb + mp]);
+            helps |= landHelps[mp];
         }
         if (!helps && pruneMoves) {
             return;
@@ -840,7 +845,9 @@ final class JointBound {
                 dv[diff + nb - 1] = Math.max(base[diff + nb - 1],
                         second.leastDuration(room - paid, fLo, fHi, uMax) * (1 - 1e-12));
             }
-            landing(dv, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, land2Lo, land2Hi, landScratch);
+            // (only where the first count's labels could lower the bin: elsewhere the second's, no lower, change nothing)
+            landing(dv, d, arrival, nb, liveBins, live, tau, tauBottom, from * nb, top, land2Lo, land2Hi, landScratch,
+                    pruneMoves ? landHelps : null);
             for (int mp = 0; mp <= top; mp++) {
                 if (land2Lo[mp] >= landLo[mp] && land2Hi[mp] >= landHi[mp]) {
                     landLo[mp] = land2Lo[mp];
@@ -860,17 +867,18 @@ final class JointBound {
      * landing bin's bottom ({@code lo}) and top ({@code hi}), the least over the sources of each source's affine lower
      * bound of the arrival. Source bin m's label runs from {@code bottom[offset + m]} at s_m to {@code topOf[offset + m]}
      * at s_{m+1}. {@code dur} holds the least duration at the bin differences (index nb − k for S' − S = k w), which with
-     * the kinetic floor {@code d} gives D, falling and convex in S' − S; a secant is used only where the samples
-     * around it bear that out.
+     * the kinetic floor {@code d} gives D, falling and convex in S' − S (docs/model.md, "Lower bounds", 5: convex by
+     * construction, so no sampled check is needed; the labels' deflation covers the samples' rounding).
      */
     static void landing(double[] dur, double d, double arrival, int nb, int[] liveBins, int live, double[] topOf,
                         double[] bottom, int offset, int top, double[] lo, double[] hi) {
-        landing(dur, d, arrival, nb, liveBins, live, topOf, bottom, offset, top, lo, hi, new double[4][2 * nb - 1]);
+        landing(dur, d, arrival, nb, liveBins, live, topOf, bottom, offset, top, lo, hi, new double[4][2 * nb - 1], null);
     }
 
-    /** {@link #landing}, with scratch arrays (four of 2 nb − 1). */
+    /** {@link #landing}, with scratch arrays (four of 2 nb − 1), for the landing bins in {@code only} (null: all). */
     private static void landing(double[] dur, double d, double arrival, int nb, int[] liveBins, int live, double[] topOf,
-                                double[] bottom, int offset, int top, double[] lo, double[] hi, double[][] scratch) {
+                                double[] bottom, int offset, int top, double[] lo, double[] hi, double[][] scratch,
+                                boolean[] only) {
         for (int mp = 0; mp <= top; mp++) {
             lo[mp] = Double.POSITIVE_INFINITY;
             hi[mp] = Double.POSITIVE_INFINITY;
@@ -888,7 +896,7 @@ final class JointBound {
             if (k0 + 2 <= nb && d1 < Double.POSITIVE_INFINITY) {
                 // the secant of D over [k0 + 1, k0 + 2], extended down to k0 − 1: below D there (convex)
                 double slope = d1 - durationAt(dur, d, nb, k0 + 2);
-                if (slope >= 0 && below(d1 + slope, dur, d, nb, k0) && below(d1 + 2 * slope, dur, d, nb, k0 - 1)) {
+                if (slope >= 0) {
                     slopes[x] = slope;
                 }
             }
@@ -898,8 +906,7 @@ final class JointBound {
                 double da = durationAt(dur, d, nb, k0 - 2);
                 double db = durationAt(dur, d, nb, k0 - 1);
                 double drop = da - db;
-                if (da < Double.POSITIVE_INFINITY && drop >= 0 && below(db - drop, dur, d, nb, k0)
-                        && below(db - 2 * drop, dur, d, nb, k0 + 1)) {
+                if (da < Double.POSITIVE_INFINITY && drop >= 0) {
                     dbs[x] = db;
                     drops[x] = drop;
                 }
@@ -911,6 +918,9 @@ final class JointBound {
             double b = bottom[offset + m];
             double rise = b - r;
             for (int mp = 0; mp <= top; mp++) {
+                if (only != null && !only[mp]) {
+                    continue;
+                }
                 int x = mp - m + nb - 1;
                 // S = s_m + θw in the source bin, S' = s_mp + ηw in the landing bin: S' − S = (k0 + η − θ) w
                 double d1 = d1s[x];
@@ -957,11 +967,6 @@ final class JointBound {
         return Math.max(d, dur[nb - Math.max(k, 2 - nb)]);
     }
 
-    /** Whether a secant's extension is at or below the sample of D at k (true where k lies beyond the samples). */
-    private static boolean below(double v, double[] dur, double d, int nb, int k) {
-        return k < 2 - nb || k > nb || v <= durationAt(dur, d, nb, k) * (1 + 1e-9);
-    }
-
     /** Per level: the least durations by bin difference, and the cold corner's second φ, by gas weights. */
     private static final class LevelMemo {
         final java.util.HashMap<Long, double[]> dv = new java.util.HashMap<>();
@@ -979,6 +984,7 @@ final class JointBound {
     private double[] land2Lo;
     private double[] land2Hi;
     private double[][] landScratch;
+    private boolean[] landHelps;
     /** With stored gas: each node and bin's label at the bin's bottom (the top's is in τ), this level's and the next's. */
     private double[] tauBottom;
     private double[] nextBottom;
