@@ -69,10 +69,12 @@ public final class LowerBound {
      * The stored-gas joint bound: bins of the followed corner's stored gas, its clock step, and the cells of the coarse
      * quasi-steady guide (measured on the dense demo with affine labels per bin: 6 / 8 / 12 / 16 / 32 bins
      * 208.1 / 209.0 / 209.7 / 209.8 / 209.9 min in 0.6 / 0.8 / 1.3 / 2.0 / 6.5 s; with one value per bin, which lets each
-     * move gain up to a bin of free storage, 16 / 32 / 64 bins gave 206.8 / 208.3 / 209.1).
+     * move gain up to a bin of free storage, 16 / 32 / 64 bins gave 206.8 / 208.3 / 209.1). Clock levels of 10 / 15 /
+     * 20 % in f, with the lockstep after a change of corner: dense demo 210.8 / 211.5 / 211.4 min, two-component-stored
+     * 262.0 / 262.4 / 261.7, at about the same cost (fewer levels, each with more moves).
      */
     static final int STORED_BINS = 8;
-    static final double STORED_CLOCK_DELTA = 0.1;
+    static final double STORED_CLOCK_DELTA = 0.15;
     static final double GUIDE_CELL_WIDTH = 0.03;
     /** Parts of each clock level with several components (each with its own floors). */
     static final int CLOCK_PARTS = 2;
