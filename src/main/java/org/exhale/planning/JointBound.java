@@ -752,8 +752,7 @@ final class JointBound {
         if (base == null) {
             StoredGas.Phi phi = hotCorner ? hotPhis.computeIfAbsent(memoKey, z -> storage.hot.phi(a, null))
                     : storage.cold.phi(a, null);
-            // (one slot more: the least extension 3 D(k0 − 1) − 2 D(k0 − 2) of a secant, for the quick test below)
-            base = new double[2 * nb];
+            base = new double[2 * nb - 1];
             for (int diff = -(nb - 1); diff <= nb - 1; diff++) {
                 base[diff + nb - 1] = phi.leastDuration((1 - diff) * binWidth - exactGas, fLo, fHi, uMax) * (1 - 1e-12);
             }
@@ -762,14 +761,6 @@ final class JointBound {
             for (int x = 2 * nb - 3; x >= 0; x--) {
                 base[x] = Math.min(base[x], base[x + 1]);
             }
-            double least = base[0];
-            for (int k0 = 4 - nb; k0 <= nb - 1; k0++) {
-                double da = base[nb - (k0 - 2)];
-                if (da < Double.POSITIVE_INFINITY) {
-                    least = Math.min(least, 3 * base[nb - (k0 - 1)] - 2 * da);
-                }
-            }
-            base[2 * nb - 1] = least;
             phiMemo.dv.put(memoKey, base);
         }
         // a bin is dominated by a lower one whose label at its bottom is no later than this one's at its top: every S of
@@ -805,8 +796,14 @@ final class JointBound {
             leastSource = Math.min(leastSource, tau[from * nb + liveBins[l]]);
         }
         // (a label from the secant of [k0 − 2, k0 − 1] extended to k0 + 1 is at least the source's top plus that extension,
-        // 3 D(k0 − 1) − 2 D(k0 − 2), which the same with the samples before the kinetic floor bounds from below)
-        double floor = Math.min(Math.max(d, base[0]), base[2 * nb - 1]);
+        // 3 D(k0 − 1) − 2 D(k0 − 2))
+        double floor = Math.max(d, base[0]);
+        for (int k0 = 4 - nb; k0 <= nb - 1; k0++) {
+            double da = Math.max(d, base[nb - (k0 - 2)]);
+            if (da < Double.POSITIVE_INFINITY) {
+                floor = Math.min(floor, 3 * Math.max(d, base[nb - (k0 - 1)]) - 2 * da);
+            }
+        }
         double earliest = leastSource + floor;
         if (earliest - 1e-8 * Math.abs(earliest) >= threshold && pruneMoves) {
             return;
