@@ -570,14 +570,9 @@ final class JointBound {
         // (this can leave out a node whose τ is no earlier than a finishing node's, which the order by index processed: its
         // moves could lower nothing, but under quasi-steady gas its admissible temperature no longer counts towards the
         // level's hottest move; rigorous either way, as such a node is not regular; measured: no bound changed)
-        double[] start = new double[cellCount];
+        double[] start = leastByCell(tau);
         Integer[] order = new Integer[cellCount];
         for (int flat = 0; flat < cellCount; flat++) {
-            double t0 = Double.POSITIVE_INFINITY;
-            for (int m = 0; m < nb; m++) {
-                t0 = Math.min(t0, tau[flat * nb + m]);
-            }
-            start[flat] = t0;
             order[flat] = flat;
         }
         Arrays.sort(order, (x, y) -> Double.compare(start[x], start[y]));

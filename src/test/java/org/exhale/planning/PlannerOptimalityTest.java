@@ -35,7 +35,9 @@ class PlannerOptimalityTest {
         CaseFile cf = bench("qs-one-pressure.yaml");
         BakeCase bake = cf.bake().withWafer(Wafer.ideal());
         Tool tool = cf.tool();
-        double optimum = greedyOptimum(bake, tool, 0.25);
+        InstantLimits limits = new InstantLimits(bake);
+        double pMax = bake.limits().maxPressurePa();
+        double optimum = greedyOptimum(bake, tool, 0.25, (x, a) -> pMax - limits.excessPressure(x, a), 250);
         PlanResult p = Planner.plan(bake, tool);
         assertTrue(p.verified(), "not verified: " + p.infeasibility());
         // the ride is sampled on a control interval, the optimum continuously: 1 % (empirical)
@@ -64,33 +66,7 @@ class PlannerOptimalityTest {
         BakeCase bake = cf.bake();
         Tool tool = cf.tool();
         InstantLimits limits = new InstantLimits(bake);
-        double dt = 0.5;
-        double cap = Planner.floorSetpoint(bake.limits().ceilingK(), tool.setpointStepK());
-        double target = 1 - bake.limits().residue();
-        double[] a = {bake.polymer().initialConversion(0)};
-        double temp = bake.recipeStartK();
-        BrentSolver brent = new BrentSolver(1e-9, 1e-10);
-        double optimum = 0;
-        while (a[0] < target) {
-            double[] probe = a.clone();
-            double hi = Math.min(temp + tool.maxRampUpKPerS() * dt, cap);
-            double next = hi;
-            if (limits.margin(hi, probe) < 1) {
-                next = brent.solve(200, x -> limits.margin(x, probe) - 1, 300, hi);
-            }
-            // premise of the comparison lemma with a ramp limit: T_adm(α) never falls along the path
-            assertTrue(next >= temp - 1e-6, "T_adm fell along the path: " + temp + " -> " + next + " K");
-            double k1 = limits.rate(0, next, a[0]);
-            double mid = a[0] + 0.5 * dt * k1;
-            double aNew = a[0] + dt * limits.rate(0, next, mid);
-            if (aNew >= target) {
-                optimum += dt * (target - a[0]) / (aNew - a[0]);
-                break;
-            }
-            a[0] = aNew;
-            temp = next;
-            optimum += dt;
-        }
+        double optimum = greedyOptimum(bake, tool, 0.5, (x, a) -> limits.margin(x, a) - 1, 300);
         double capK = Planner.floorSetpoint(tool.highestSetpointK(bake.limits().ceilingK(), bake.wafer().spreadK()),
                 tool.setpointStepK());
         Rider.Ride ride = new Rider(bake, tool, capK, org.exhale.simulation.GasRegime.QUASI_STEADY, 1).ride(30, 86_400);
@@ -104,10 +80,18 @@ class PlannerOptimalityTest {
         assertTrue(bound >= optimum * 0.99, "bound " + bound + " s vs optimum " + optimum + " s");
     }
 
-    /** The greedy optimum's time to the residue target [s]. */
-    private static double greedyOptimum(BakeCase bake, Tool tool, double dt) {
+    /** Where the limits of a greedy schedule hold: headroom ≥ 0 at temperature T [K] and conversions α. */
+    private interface Headroom {
+        double at(double temperatureK, double[] alpha);
+    }
+
+    /**
+     * The greedy optimum's time to the residue target [s]: at every step the highest temperature the ramp rate, the
+     * ceiling and the limits allow (Brent's method between {@code lowK} and the ramp's reach where the limits fail
+     * there), α by the midpoint rule. Asserts the comparison lemma's premise with a ramp limit: T_adm(α) never falls.
+     */
+    private static double greedyOptimum(BakeCase bake, Tool tool, double dt, Headroom headroom, double lowK) {
         InstantLimits limits = new InstantLimits(bake);
-        double pMax = bake.limits().maxPressurePa();
         double cap = Planner.floorSetpoint(bake.limits().ceilingK(), tool.setpointStepK());
         double target = 1 - bake.limits().residue();
         double[] a = {bake.polymer().initialConversion(0)};
@@ -118,14 +102,14 @@ class PlannerOptimalityTest {
             double[] probe = a.clone();
             double hi = Math.min(temp + tool.maxRampUpKPerS() * dt, cap);
             double next = hi;
-            if (limits.excessPressure(hi, probe) > pMax) {
-                next = brent.solve(200, x -> limits.excessPressure(x, probe) - pMax, 250, hi);
+            if (headroom.at(hi, probe) < 0) {
+                next = brent.solve(200, x -> headroom.at(x, probe), lowK, hi);
             }
+            assertTrue(next >= temp - 1e-6, "T_adm fell along the path: " + temp + " -> " + next + " K");
             // midpoint rule for α over the step at the chosen temperature
             double k1 = limits.rate(0, next, a[0]);
             double mid = a[0] + 0.5 * dt * k1;
-            double k2 = limits.rate(0, next, mid);
-            double aNew = a[0] + dt * k2;
+            double aNew = a[0] + dt * limits.rate(0, next, mid);
             if (aNew >= target) {
                 t += dt * (target - a[0]) / (aNew - a[0]);
                 break;
