@@ -128,6 +128,7 @@ final class PlanCommand implements Callable<Integer> {
         m.put("bound_ratio", SummaryJsonWriter.num(p.boundRatio()));
         m.put("ride_s", SummaryJsonWriter.num(p.rideS()));
         m.put("ride_ratio", SummaryJsonWriter.num(p.rideRatio()));
+        m.put("ride_admissible", Double.isFinite(p.rideS()) ? p.rideAdmissible() : null);
         m.put("lower_bound_rigorous", p.boundRigorous());
         m.put("lower_bound_kind", boundKind(p.lowerBound()));
         m.put("ceiling_only_lower_bound_s", SummaryJsonWriter.num(p.lowerBound().ceilingOnlyBoundS()));
@@ -223,8 +224,9 @@ final class PlanCommand implements Callable<Integer> {
         }
         sb.append("  bounds: ").append(others).append('\n');
         if (Double.isFinite(p.rideS())) {
-            sb.append(String.format(Locale.ROOT, "Closed-loop ride (unlimited steps): %.1f min; planned/ride = %s%n",
-                    p.rideS() / 60, Numbers.sig(p.rideRatio(), 4)));
+            sb.append(String.format(Locale.ROOT, "Closed-loop ride (unlimited steps): %.1f min; planned/ride = %s%s%n",
+                    p.rideS() / 60, Numbers.sig(p.rideRatio(), 4), p.rideAdmissible() ? ""
+                            : " (the ride crossed a limit on the way: a reference only, not an achievable time)"));
         }
         sb.append("Verified: ").append(p.verified() ? "yes, the rounded recipe meets every limit at every corner" : "NO").append('\n');
         sb.append(TextSummary.limits(p.verification().margins()));

@@ -22,11 +22,14 @@ import org.exhale.simulation.BakeResult;
  * @param rideS             time to target of the closed-loop ride with unlimited steps (the planner's
  *                          backbone), NaN where the plan did not need one (only the ceiling and the
  *                          ramp bind) or none was found [s]
+ * @param rideAdmissible    whether that ride kept every limit all the way; where it did not (somewhere no setpoint
+ *                          could hold and it cooled as the limits allowed), its time is a reference only, not a time
+ *                          any recipe is known to reach, and bound ≤ ride need not hold
  */
 public record PlanResult(Recipe recipe, BakeResult verification, double durationS, double totalS,
                          LowerBound.Result lowerBound, boolean boundRigorous, boolean verified, List<String> binding,
                          int evaluations, List<String> notes, Infeasibility infeasibility,
-                         double rideS) {
+                         double rideS, boolean rideAdmissible) {
 
     /** Why the target cannot be met, and what would help. */
     public record Infeasibility(String limit, String reason, double bestResidue, double withinS, String suggestion) {
@@ -45,7 +48,7 @@ public record PlanResult(Recipe recipe, BakeResult verification, double duration
     /** The same outcome with another lower bound (the planner's stored-gas bound arrives after its search). */
     public PlanResult withLowerBound(LowerBound.Result bound) {
         return new PlanResult(recipe, verification, durationS, totalS, bound, boundRigorous, verified, binding, evaluations,
-                notes, infeasibility, rideS);
+                notes, infeasibility, rideS, rideAdmissible);
     }
 
     public boolean feasible() {

@@ -283,7 +283,7 @@ public final class Planner {
                         notes.add("final hold lengthened " + ext + " time(s) so the target is met at its end");
                     }
                     return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
-                            Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null, rideS);
+                            Binding.perStep(bake, tool, recipe, proof), evaluations, notes, null, rideS, rideAdmissible);
                 }
                 lastProof = proof;
                 if (!others.isEmpty()) {
@@ -301,6 +301,8 @@ public final class Planner {
     private Rider rider;
     /** The closed-loop ride's own time to target (NaN until ridden). */
     private double rideS = Double.NaN;
+    /** Whether the ride kept every limit all the way (else it is a reference only, not an achievable time). */
+    private boolean rideAdmissible;
 
     /**
      * The rider's plan: ride the case closed-loop in the proof's gas regime, place the tool's steps
@@ -338,6 +340,7 @@ public final class Planner {
             return null;
         }
         rideS = ride.timeToTargetS();
+        rideAdmissible = ride.admissibleThroughout();
         notes.add("closed-loop ride (" + (regime == GasRegime.FULL_GAS ? "full gas equations" : "quasi-steady gas")
                 + ", every corner, " + String.format(java.util.Locale.ROOT, "%.0f s", control) + " control interval): "
                 + minutes(rideS) + (ride.admissibleThroughout() ? "" : ", though not admissible throughout"));
@@ -424,7 +427,7 @@ public final class Planner {
                     notes.add("final hold lengthened " + ext + " time(s) so the target is met at its end");
                 }
                 return new PlanResult(recipe, proof, holdEnd, recipe.durationS(), bound, rigorous, true,
-                        Binding.perStep(bake, tool, recipe, proof), evaluations + rider.trials(), notes, null, rideS);
+                        Binding.perStep(bake, tool, recipe, proof), evaluations + rider.trials(), notes, null, rideS, rideAdmissible);
             }
             double lateBy = Double.isNaN(proof.timeToTargetS()) ? 0.01 * holdEnd : proof.timeToTargetS() - holdEnd;
             recipe = extendFinalHold(recipe, Math.max(Math.max(tool.timeStepS(), 1), lateBy));
@@ -1033,7 +1036,7 @@ public final class Planner {
 
     private PlanResult infeasible(LowerBound.Result bound, boolean rigorous, String limit, String reason, String suggestion) {
         return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
-                new PlanResult.Infeasibility(limit, reason, Double.NaN, Double.NaN, suggestion), rideS);
+                new PlanResult.Infeasibility(limit, reason, Double.NaN, Double.NaN, suggestion), rideS, rideAdmissible);
     }
 
     private PlanResult diagnose(LowerBound.Result bound, boolean rigorous, Eval best) {
@@ -1061,7 +1064,7 @@ public final class Planner {
             }
             return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
                     new PlanResult.Infeasibility("residue", "the residue target is not reached under the ceiling",
-                            bestU, LONG_HOLD_S, suggestion), rideS);
+                            bestU, LONG_HOLD_S, suggestion), rideS, rideAdmissible);
         }
         Margin proofWorst = lastProof == null ? null
                 : lastProof.violated().stream().filter(m -> !m.limit().equals("residue")).findFirst().orElse(null);
@@ -1090,7 +1093,7 @@ public final class Planner {
         String reason = atStart < 1 ? "the '" + limit + "' limit fails already at the start temperature"
                 : "no recipe tried keeps the '" + limit + "' limit (best margin " + String.format(java.util.Locale.ROOT, "%.3g", best.minMargin) + ")";
         return new PlanResult(null, null, Double.NaN, Double.NaN, bound, rigorous, false, List.of(), evaluations, notes,
-                new PlanResult.Infeasibility(limit, reason, bestU, LONG_HOLD_S, suggestion), rideS);
+                new PlanResult.Infeasibility(limit, reason, bestU, LONG_HOLD_S, suggestion), rideS, rideAdmissible);
     }
 
     private double[] initialAlpha() {

@@ -124,7 +124,10 @@ public final class RecipeSheet {
         }
         if (plan.path("ride_s").isNumber()) {
             f.put("Closed-loop ride", Readable.mmss(plan.path("ride_s").asDouble())
-                    + ": the time of the planner's closed-loop ride (bound ≤ ride ≤ plan)");
+                    + (plan.path("ride_admissible").asBoolean(true)
+                    ? ": the time of the planner's closed-loop ride (bound ≤ ride ≤ plan)"
+                    : ": the planner's closed-loop ride, which crossed a limit on the way: a reference only, not a time"
+                            + " any recipe is known to reach"));
         }
         JsonNode margins = summary == null ? plan.path("margins") : summary.path("margins");
         String t = tightest(margins);

@@ -16,11 +16,15 @@ class PlanChartsTest {
     @TempDir
     Path tmp;
 
-    private List<?> bars(String rideJson) throws Exception {
-        Path dir = ReportFixtures.bake(tmp.resolve("run" + rideJson.length()), "chart case", "b", false);
+    private Figure figure(String rideJson, String admissible) throws Exception {
+        Path dir = ReportFixtures.bake(tmp.resolve("run" + rideJson.length() + admissible), "chart case", "b", false);
         Files.writeString(dir.resolve("plan.json"), "{\"duration_s\": 14378, \"lower_bound_s\": 12406.6, \"lower_bound_rigorous\": true, "
-                + "\"ride_s\": " + rideJson + "}");
-        Figure f = PlanCharts.lowerBound(RunFolder.read(dir)).orElseThrow();
+                + "\"ride_s\": " + rideJson + ", \"ride_admissible\": " + admissible + "}");
+        return PlanCharts.lowerBound(RunFolder.read(dir)).orElseThrow();
+    }
+
+    private List<?> bars(String rideJson) throws Exception {
+        Figure f = figure(rideJson, "true");
         CategoryPlot plot = f.chart().getCategoryPlot();
         List<?> keys = plot.getDataset().getColumnKeys();
         assertTrue(f.caption().contains("closed-loop ride") == (keys.size() == 3), f.caption());
@@ -31,5 +35,12 @@ class PlanChartsTest {
     void rideBetweenBoundAndPlanWhenKnown() throws Exception {
         assertEquals(List.of("lower bound", "closed-loop ride", "plan"), bars("14267.4"));
         assertEquals(List.of("lower bound", "plan"), bars("null"));
+    }
+
+    @Test
+    void aRideThatCrossedALimitIsMarkedAsAReferenceOnly() throws Exception {
+        Figure f = figure("10513.8", "false");
+        assertEquals(List.of("lower bound", "ride (crossed a limit)", "plan"), f.chart().getCategoryPlot().getDataset().getColumnKeys());
+        assertTrue(f.caption().contains("crossed a limit on the way"), f.caption());
     }
 }
