@@ -305,11 +305,10 @@ public final class Planner {
     private boolean rideAdmissible;
 
     /**
-     * The rider's plan: ride the case closed-loop in the proof's gas regime, place the tool's steps
-     * along the ride, prove the rounded recipe; if the proof fails, ask the rider for a larger margin
-     * (bisection between the failed and a passing margin). Null when no verified recipe came out.
+     * The closed-loop ride in the proof's gas regime on a control interval from the fast bounds (sets {@link #rider},
+     * {@link #rideS}, {@link #rideAdmissible}); null, with a note, when it never reaches the target.
      */
-    private PlanResult riderPlan(LowerBound.Result bound, boolean rigorous) {
+    private Rider.Ride ride(LowerBound.Result bound) {
         BakeResult pr = probe();
         GasRegime regime = pr.corners().stream().anyMatch(c -> c.regime() == GasRegime.FULL_GAS)
                 ? GasRegime.FULL_GAS : GasRegime.QUASI_STEADY;
@@ -344,6 +343,26 @@ public final class Planner {
         notes.add("closed-loop ride (" + (regime == GasRegime.FULL_GAS ? "full gas equations" : "quasi-steady gas")
                 + ", every corner, " + String.format(java.util.Locale.ROOT, "%.0f s", control) + " control interval): "
                 + minutes(rideS) + (ride.admissibleThroughout() ? "" : ", though not admissible throughout"));
+        return ride;
+    }
+
+    /** The closed-loop ride the planner would take for this case (for tests that check it from outside). */
+    static Rider.Ride rideFor(BakeCase bake, Tool tool) {
+        Planner p = new Planner(bake, tool);
+        return p.ride(LowerBound.compute(bake, tool, p.quasiSteady(), false));
+    }
+
+    /**
+     * The rider's plan: ride the case closed-loop in the proof's gas regime, place the tool's steps
+     * along the ride, prove the rounded recipe; if the proof fails, ask the rider for a larger margin
+     * (bisection between the failed and a passing margin). Null when no verified recipe came out.
+     */
+    private PlanResult riderPlan(LowerBound.Result bound, boolean rigorous) {
+        Rider.Ride ride = ride(bound);
+        if (ride == null) {
+            return null;
+        }
+        Rider rider = this.rider;
         int ramps = Math.max(1, tool.maxSteps() - 1 - (tool.hasUnload() ? 1 : 0));
         // knots along the ride by either measure of a ramp's loss, the recipe built by the rules of BUILDS (see
         // Rider.Rule): the shortest predicted recipe wins (ties to the first, so the choice is deterministic)
