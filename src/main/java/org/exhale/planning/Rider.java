@@ -45,6 +45,9 @@ final class Rider {
     private static final double BAND = 5e-4;
     /** The smallest margin every segment must keep. */
     private double margin = 1.001;
+    /** The look-ahead, in units of the wafer lag plus the gas relaxation time. */
+    private double lookAhead = LOOK_AHEAD;
+    static final double LOOK_AHEAD = 3;
     private int trials;
 
     Rider(BakeCase bake, Tool tool, double capK, GasRegime regime, double gasScale) {
@@ -61,6 +64,10 @@ final class Rider {
 
     void setMargin(double m) {
         this.margin = m;
+    }
+
+    void setLookAhead(double units) {
+        this.lookAhead = units;
     }
 
     double margin() {
@@ -566,7 +573,7 @@ final class Rider {
         if (m < margin) {
             return m;
         }
-        double look = 3 * (lagS + s.relaxationTimeS());
+        double look = lookAhead * (lagS + s.relaxationTimeS());
         if (look < 1e-3 * d || !Double.isFinite(look)) {
             return m;
         }

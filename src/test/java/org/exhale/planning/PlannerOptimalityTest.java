@@ -158,31 +158,36 @@ class PlannerOptimalityTest {
 
     /**
      * Under kinetics whose rate rises with conversion (Šesták–Berggren m = 0.5, n = 1.5: f grows from the seed), the
-     * admissible temperature falls as the bake goes on; dense-one so changed is planned and verified, and the plan says
-     * whether its closed-loop ride kept every limit all the way, which only a ride that did may claim bound ≤ ride.
+     * admissible temperature falls after the first climb faster than the ride's look-ahead sees, and the ride crosses the
+     * crack limit (measured: it overshoots to 311 °C at minute 17); a second ride that looks four times further keeps
+     * every limit and is the one reported. Each ride's own flag is checked against the full verification: its setpoint
+     * path replayed as a recipe (an independent judge, not the rider's own trials).
      */
     @Test
-    void aRideThatCrossedALimitIsFlaggedAndThePlanStillVerified() throws Exception {
+    void aRideThatCrossedALimitIsRiddenAgainAndEachFlagMatchesTheVerification() throws Exception {
         String text = java.nio.file.Files.readString(Path.of("data/bench/dense-one.yaml"))
                 .replace("model: nth-order, n: 1.0", "model: sestak-berggren, m: 0.5, n: 1.5");
         CaseFile cf = CaseYamlReader.parse("rising.yaml", text.getBytes(java.nio.charset.StandardCharsets.UTF_8));
         PlanResult p = Planner.plan(cf.bake(), cf.tool());
         assertTrue(p.verified(), "not verified: " + p.infeasibility());
         assertTrue(p.durationS() >= p.lowerBound().boundS(), "the verified plan beats the bound");
-        // measured: the ride overshoots to 311 °C at minute 17 and crosses the crack limit (docs/model.md, "Planning")
-        assertFalse(p.rideAdmissible(), "the ride kept every limit here: the flag or the case changed");
-        assertTrue(p.notes().stream().anyMatch(n -> n.contains("not admissible throughout")), String.join("; ", p.notes()));
-        // the flag against the simulator itself: the ride's setpoint path, run as a recipe, breaks a limit here and
-        // keeps every limit on dense-one (an independent judge: the full verification, not the rider's own trials)
-        assertEquals(false, rideKeepsEveryLimit(cf), "the ride's path as a recipe");
+        Rider.Ride[] rides = Planner.ridesFor(cf.bake(), cf.tool());
+        assertFalse(rides[0].admissibleThroughout(), "the first ride kept every limit here: the case or the rider changed");
+        assertEquals(false, keepsEveryLimit(cf, rides[0]), "the first ride's path as a recipe");
+        assertTrue(rides[1].admissibleThroughout(), "the ride that looks further crossed a limit too");
+        assertEquals(true, keepsEveryLimit(cf, rides[1]), "the reported ride's path as a recipe");
+        assertTrue(p.rideAdmissible());
+        assertEquals(rides[1].timeToTargetS(), p.rideS(), 1e-6);
+        assertTrue(p.rideS() >= p.lowerBound().boundS(), "ride " + p.rideS() + " s beats the bound " + p.lowerBound().boundS());
+        // dense-one as shipped: one ride, admissible, and its path keeps every limit
         CaseFile one = bench("dense-one.yaml");
-        assertTrue(Planner.rideFor(one.bake(), one.tool()).admissibleThroughout());
-        assertEquals(true, rideKeepsEveryLimit(one), "dense-one's ride as a recipe");
+        Rider.Ride[] oneRides = Planner.ridesFor(one.bake(), one.tool());
+        assertTrue(oneRides[0].admissibleThroughout() && oneRides[1] == oneRides[0]);
+        assertEquals(true, keepsEveryLimit(one, oneRides[0]), "dense-one's ride as a recipe");
     }
 
-    /** The case's closed-loop ride replayed as a recipe (a ramp or hold per control interval) under the full verification. */
-    private static boolean rideKeepsEveryLimit(CaseFile cf) {
-        Rider.Ride ride = Planner.rideFor(cf.bake(), cf.tool());
+    /** A ride replayed as a recipe (a ramp or hold per control interval) under the full verification. */
+    private static boolean keepsEveryLimit(CaseFile cf, Rider.Ride ride) {
         java.util.List<org.exhale.recipe.Step> steps = new java.util.ArrayList<>();
         double[] t = ride.timesS();
         double[] sp = ride.setpointsK();
