@@ -24,7 +24,8 @@ import org.exhale.simulation.BakeResult;
  *                          ramp bind) or none was found [s]
  * @param rideAdmissible    whether that ride kept every limit all the way; where it did not (somewhere no setpoint
  *                          could hold and it cooled as the limits allowed), its time is a reference only, not a time
- *                          any recipe is known to reach, and bound ≤ ride need not hold
+ *                          any recipe is known to reach, and bound ≤ ride need not hold; false, and meaningless, where
+ *                          there is no ride (rideS NaN)
  */
 public record PlanResult(Recipe recipe, BakeResult verification, double durationS, double totalS,
                          LowerBound.Result lowerBound, boolean boundRigorous, boolean verified, List<String> binding,

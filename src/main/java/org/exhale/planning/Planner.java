@@ -33,7 +33,8 @@ import org.hipparchus.optim.nonlinear.scalar.noderiv.BOBYQAOptimizer;
  *       regime ({@link Rider}), knots placed on it by dynamic programming, the recipe built from the
  *       real simulated state segment by segment on the tool's grid, then proved by simulating it again
  *       at every corner; a failed proof raises the rider's margin, bisected between failure and
- *       success. The ride's own time is reported as {@code rideS}.</li>
+ *       success. The ride's own time is reported as {@code rideS} (where the ride crossed a limit, that of a
+ *       second ride looking four times as far ahead, if it kept every limit; {@code rideAdmissible} says which).</li>
  *   <li><b>Fallback</b> (only when the rider finds no admissible path): the older seeds (a rider seed
  *       on the instantaneous limits, a slow staircase), BOBYQA refinement, rounding and proof with
  *       back-off; or a diagnosis of the limit that makes the case infeasible.</li>
@@ -352,15 +353,21 @@ public final class Planner {
             // where the admissible temperature falls faster than the look-ahead sees (a rate that rises with conversion),
             // a ride that looks further keeps every limit; its time is the reference reported (the recipe is still built
             // along the first ride, which gave the shorter plans where measured: docs/model.md, "Planning")
-            rider.setLookAhead(RETRY_LOOK_AHEAD);
-            Rider.Ride further = rider.ride(control, LONG_HOLD_S);
-            rider.setLookAhead(Rider.LOOK_AHEAD);
+            double look = rider.lookAhead();
+            Rider.Ride further;
+            try {
+                rider.setLookAhead(RETRY_LOOK_AHEAD);
+                further = rider.ride(control, LONG_HOLD_S);
+            } finally {
+                rider.setLookAhead(look);
+            }
             if (further.admissibleThroughout() && !Double.isNaN(further.timeToTargetS())) {
                 reportedRide = further;
                 rideS = further.timeToTargetS();
                 rideAdmissible = true;
-                notes.add("closed-loop ride with a look-ahead " + (int) (RETRY_LOOK_AHEAD / Rider.LOOK_AHEAD)
-                        + " times as long keeps every limit: " + minutes(rideS) + " (reported as the ride)");
+                notes.add("closed-loop ride with a look-ahead " + (int) (RETRY_LOOK_AHEAD / look)
+                        + " times as long keeps every limit: " + minutes(rideS) + " (reported as the ride; the steps"
+                        + " follow the first)");
             }
         }
         return ride;

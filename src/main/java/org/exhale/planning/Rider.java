@@ -20,7 +20,9 @@ import org.exhale.simulation.SimulationSettings;
  * and when, after it, the bake still has a safe continuation over a look-ahead of three times the
  * wafer lag plus the gas relaxation time: holding the setpoint, or cooling at the fastest rate.
  * Without the look-ahead the lag and the stored gas would carry the bake over a limit after the
- * rider stops climbing.
+ * rider stops climbing. Where the admissible temperature falls faster than that look-ahead sees (a
+ * rate that rises with conversion), a ride can still cross a limit: it says so
+ * ({@link Ride#admissibleThroughout}), and the planner then rides again looking four times as far.
  *
  * <p><b>The ride</b> ({@link #ride}) applies this on a fine control interval with unlimited steps:
  * its time to the residue target is the benchmark a recipe with few steps is measured against
@@ -68,6 +70,10 @@ final class Rider {
 
     void setLookAhead(double units) {
         this.lookAhead = units;
+    }
+
+    double lookAhead() {
+        return lookAhead;
     }
 
     double margin() {

@@ -21,25 +21,35 @@ class JointBoundPruningTest {
 
     @Test
     void skippingMovesThatLowerNoNodeChangesNothing() {
-        CaseFile cf = CaseYamlReader.read(Path.of("data/bench/two-component-stored.yaml"));
+        prunedEqualsKept("data/bench/two-component-stored.yaml", LowerBound.STORED_CLOCK_DELTA, LowerBound.STORED_BINS);
+    }
+
+    @Test
+    void skippingMovesChangesNothingOnTheOneComponentGrid() {
+        // one component, on the fine grid kept for it (1 % levels, 64 bins): many more levels and bins per move
+        prunedEqualsKept("data/bench/dense-one.yaml", LowerBound.STORED_CLOCK_DELTA_ONE, LowerBound.STORED_BINS_ONE);
+    }
+
+    private static void prunedEqualsKept(String file, double clockDelta, int bins) {
+        CaseFile cf = CaseYamlReader.read(Path.of(file));
         BakeCase bake = cf.bake();
         double spread = bake.wafer().spreadK();
         TemperatureCap cap = new TemperatureCap(bake.recipeStartK(), bake.limits().ceilingK() - spread,
                 cf.tool().maxRampUpKPerS(), bake.wafer().lagS());
         InstantLimits limits = new InstantLimits(bake);
-        JointBound guide = new JointBound(bake, limits, cap, spread, LowerBound.STORED_CLOCK_DELTA, LowerBound.CELL_DELTA,
+        JointBound guide = new JointBound(bake, limits, cap, spread, clockDelta, LowerBound.CELL_DELTA,
                 LowerBound.GUIDE_CELL_WIDTH, 1);
         guide.compute();
         int[] corners = guide.bindingCorners();
-        JointBound pruned = new JointBound(bake, limits, cap, spread, LowerBound.STORED_CLOCK_DELTA, LowerBound.CELL_DELTA,
-                LowerBound.CELL_WIDTH, 1, LowerBound.STORED_BINS, corners);
-        JointBound kept = new JointBound(bake, limits, cap, spread, LowerBound.STORED_CLOCK_DELTA, LowerBound.CELL_DELTA,
-                LowerBound.CELL_WIDTH, 1, LowerBound.STORED_BINS, corners);
+        JointBound pruned = new JointBound(bake, limits, cap, spread, clockDelta, LowerBound.CELL_DELTA,
+                LowerBound.CELL_WIDTH, 1, bins, corners);
+        JointBound kept = new JointBound(bake, limits, cap, spread, clockDelta, LowerBound.CELL_DELTA,
+                LowerBound.CELL_WIDTH, 1, bins, corners);
         kept.pruneMoves = false;
         double a = pruned.compute().boundS();
         double b = kept.compute().boundS();
         assertTrue(a > 0 && Double.isFinite(a), "the stored-gas bound applies here: " + a);
         assertEquals(b, a, 0.0, "pruned " + a / 60 + " min, every move kept " + b / 60 + " min");
-        System.out.printf("stored-gas bound with moves pruned %.4f min, every move kept %.4f min%n", a / 60, b / 60);
+        System.out.printf("%s: stored-gas bound with moves pruned %.4f min, every move kept %.4f min%n", file, a / 60, b / 60);
     }
 }

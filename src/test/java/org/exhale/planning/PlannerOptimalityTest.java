@@ -172,10 +172,12 @@ class PlannerOptimalityTest {
         assertTrue(p.verified(), "not verified: " + p.infeasibility());
         assertTrue(p.durationS() >= p.lowerBound().boundS(), "the verified plan beats the bound");
         Rider.Ride[] rides = Planner.ridesFor(cf.bake(), cf.tool());
-        assertFalse(rides[0].admissibleThroughout(), "the first ride kept every limit here: the case or the rider changed");
-        assertEquals(false, keepsEveryLimit(cf, rides[0]), "the first ride's path as a recipe");
-        assertTrue(rides[1].admissibleThroughout(), "the ride that looks further crossed a limit too");
-        assertEquals(true, keepsEveryLimit(cf, rides[1]), "the reported ride's path as a recipe");
+        // each ride's flag against its own path replayed (measured today: the first crosses, the second keeps every limit;
+        // should the rider improve, the first keeps every limit and is the one reported)
+        assertEquals(rides[0].admissibleThroughout(), keepsEveryLimit(cf, rides[0]), "the first ride's path as a recipe");
+        assertEquals(rides[1].admissibleThroughout(), keepsEveryLimit(cf, rides[1]), "the reported ride's path as a recipe");
+        assertTrue(rides[1].admissibleThroughout(), "the reported ride crossed a limit");
+        assertTrue(rides[0].admissibleThroughout() == (rides[1] == rides[0]), "a second ride only where the first crossed");
         assertTrue(p.rideAdmissible());
         assertEquals(rides[1].timeToTargetS(), p.rideS(), 1e-6);
         assertTrue(p.rideS() >= p.lowerBound().boundS(), "ride " + p.rideS() + " s beats the bound " + p.lowerBound().boundS());
