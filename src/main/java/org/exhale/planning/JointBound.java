@@ -99,6 +99,17 @@ final class JointBound {
      */
     JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta,
                double cellWidth, int parts, int storedBins, int[] tracked) {
+        this(bake, limits, cap, spread, clockDelta, cellDelta, cellWidth, 0, cellWidth, parts, storedBins, tracked);
+    }
+
+    /**
+     * @param widthPerF where positive, a cell starting at the other component's reduced time F is at most
+     *                  max(minWidth, min(cellWidth, widthPerF × F)) wide: narrow where that component moves little
+     *                  per clock level (early in the bake), which is where re-placing it within its cell costs most
+     * @param minWidth  the narrowest cell that rule gives
+     */
+    JointBound(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread, double clockDelta, double cellDelta,
+               double cellWidth, double widthPerF, double minWidth, int parts, int storedBins, int[] tracked) {
         this.limits = limits;
         this.cap = cap;
         this.spread = spread;
@@ -142,7 +153,7 @@ final class JointBound {
         this.stride = new int[others.length];
         int count = 1;
         for (int o = 0; o < others.length; o++) {
-            cells[o] = grid(rt[others[o]], top(others[o]), cellDelta, cellWidth, true);
+            cells[o] = grid(rt[others[o]], top(others[o]), cellDelta, cellWidth, widthPerF, minWidth, true);
             stride[o] = count;
             count *= cells[o].length - 1;
         }
@@ -292,6 +303,12 @@ final class JointBound {
      * with {@code toOne}, 1 closes the last cell.
      */
     static double[] grid(ReducedTime r, double top, double delta, double width, boolean toOne) {
+        return grid(r, top, delta, width, 0, width, toOne);
+    }
+
+    /** As above; where {@code perF} is positive, a cell starting at F is at most max(minWidth, min(width, perF F)) wide. */
+    static double[] grid(ReducedTime r, double top, double delta, double width, double perF, double minWidth,
+                         boolean toOne) {
         double a0 = r.alpha0();
         double s0 = ReducedTime.logit(Math.max(a0, 1e-9));
         double s1 = ReducedTime.logit(top);
@@ -307,7 +324,8 @@ final class JointBound {
             }
             double fmax = r.maxF(x, c);
             double fmin = r.minF(x, c);
-            if ((fmax > (1 + delta) * fmin || c - x > 0.05 || r.upper(c) - r.lower(x) > width) && prev > x) {
+            double wide = perF > 0 ? Math.max(minWidth, Math.min(width, perF * r.lower(x))) : width;
+            if ((fmax > (1 + delta) * fmin || c - x > 0.05 || r.upper(c) - r.lower(x) > wide) && prev > x) {
                 if (n == out.length) {
                     out = Arrays.copyOf(out, 2 * n);
                 }

@@ -76,6 +76,18 @@ public final class LowerBound {
     static final int STORED_BINS = 8;
     static final double STORED_CLOCK_DELTA = 0.15;
     /**
+     * The stored-gas programme's cells of another component: at most 0.005 × its reduced time wide, between 0.003 and
+     * CELL_WIDTH — narrow early in the bake, where that component moves little per clock level and re-placing it
+     * anywhere in its cell costs most (measured, dense demo / two-component-stored, minutes and warm seconds: cells
+     * 0.01 everywhere 211.5 / 262.4 in 0.6 / 1.3 s; this rule 213.4 / 265.9 in 0.65 / 0.9 s; 0.005 × F down to 0.002
+     * 213.5 / 266.4; 0.003 × F down to 0.002 214.0 / 267.4 in 1.4 / 1.5 s; 0.004 everywhere 213.5 on the dense demo in
+     * 2.6 s; 0.0015 everywhere 215.6 / 270.2 with 16 bins in 26 / 36 s. A case with a broad Šesták–Berggren component,
+     * 3 935 cells before, moved 98.03 → 97.76: grids are not nested, so a finer one need not be higher everywhere.)
+     * The quasi-steady programme keeps CELL_WIDTH: the same rule there gains 0.7 % on qs-two-pressure at 3× its cost.
+     */
+    static final double STORED_CELL_WIDTH_PER_F = 0.005;
+    static final double STORED_CELL_WIDTH_MIN = 0.003;
+    /**
      * A second grid with one component (no cells to cross, so fine levels and many bins cost milliseconds), whose bound
      * is kept where larger. Measured on dense-one, clock step / bins: 0.15 / 8 186.2 min, 0.05 / 32 186.7, 0.02 / 64
      * 191.2, 0.01 / 32 191.4, 0.01 / 64 192.0 in 0.05 s, 0.01 / 128 192.2 in 0.3 s, 0.005 / 128 191.8 (finer levels gain
@@ -206,8 +218,14 @@ public final class LowerBound {
                                           double clockDelta, int bins) {
         JointBound guide = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, GUIDE_CELL_WIDTH, 1);
         guide.compute();
-        return new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, CELL_WIDTH, 1, bins,
-                guide.bindingCorners()).compute().boundS();
+        return storedJoint(bake, limits, cap, spread, clockDelta, bins, guide.bindingCorners()).compute().boundS();
+    }
+
+    /** The stored-gas programme as shipped, on the given clock levels and bins, following the given corners. */
+    static JointBound storedJoint(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread,
+                                  double clockDelta, int bins, int[] tracked) {
+        return new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, CELL_WIDTH, STORED_CELL_WIDTH_PER_F,
+                STORED_CELL_WIDTH_MIN, 1, bins, tracked);
     }
 
     /**

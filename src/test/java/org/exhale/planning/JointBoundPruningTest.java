@@ -41,10 +41,8 @@ class JointBoundPruningTest {
                 LowerBound.GUIDE_CELL_WIDTH, 1);
         guide.compute();
         int[] corners = guide.bindingCorners();
-        JointBound pruned = new JointBound(bake, limits, cap, spread, clockDelta, LowerBound.CELL_DELTA,
-                LowerBound.CELL_WIDTH, 1, bins, corners);
-        JointBound kept = new JointBound(bake, limits, cap, spread, clockDelta, LowerBound.CELL_DELTA,
-                LowerBound.CELL_WIDTH, 1, bins, corners);
+        JointBound pruned = LowerBound.storedJoint(bake, limits, cap, spread, clockDelta, bins, corners);
+        JointBound kept = LowerBound.storedJoint(bake, limits, cap, spread, clockDelta, bins, corners);
         kept.pruneMoves = false;
         double a = pruned.compute().boundS();
         double b = kept.compute().boundS();
