@@ -71,22 +71,29 @@ public final class LowerBound {
      * 208.1 / 209.0 / 209.7 / 209.8 / 209.9 min in 0.6 / 0.8 / 1.3 / 2.0 / 6.5 s; with one value per bin, which lets each
      * move gain up to a bin of free storage, 16 / 32 / 64 bins gave 206.8 / 208.3 / 209.1). Clock levels of 10 / 15 /
      * 20 % in f, with the lockstep after a change of corner: dense demo 210.8 / 211.5 / 211.4 min, two-component-stored
-     * 262.0 / 262.4 / 261.7, at about the same cost (fewer levels, each with more moves).
+     * 262.0 / 262.4 / 261.7, at about the same cost (fewer levels, each with more moves). 12 bins since the cells
+     * became narrow early in the bake and wide late (below), which paid for them.
      */
-    static final int STORED_BINS = 8;
+    static final int STORED_BINS = 12;
     static final double STORED_CLOCK_DELTA = 0.15;
     /**
-     * The stored-gas programme's cells of another component: at most 0.005 × its reduced time wide, between 0.003 and
-     * CELL_WIDTH — narrow early in the bake, where that component moves little per clock level and re-placing it
-     * anywhere in its cell costs most (measured, dense demo / two-component-stored, minutes and warm seconds: cells
-     * 0.01 everywhere 211.5 / 262.4 in 0.6 / 1.3 s; this rule 213.4 / 265.9 in 0.65 / 0.9 s; 0.005 × F down to 0.002
-     * 213.5 / 266.4; 0.003 × F down to 0.002 214.0 / 267.4 in 1.4 / 1.5 s; 0.004 everywhere 213.5 on the dense demo in
-     * 2.6 s; 0.0015 everywhere 215.6 / 270.2 with 16 bins in 26 / 36 s. A case with a broad Šesták–Berggren component,
-     * 3 935 cells before, moved 98.03 → 97.76: grids are not nested, so a finer one need not be higher everywhere.)
-     * The quasi-steady programme keeps CELL_WIDTH: the same rule there gains 0.7 % on qs-two-pressure at 3× its cost.
+     * The stored-gas programme's cells of another component: at most 0.005 × its reduced time wide, between 0.0025 and
+     * 0.05 — narrow early in the bake, where that component moves little per clock level and re-placing it anywhere in
+     * its cell costs most, and wide late, where it moves fast and coarse cells cost nothing. Measured (minutes; cells
+     * 0.002 wide only for F in [0, 0.3) / [0.3, 1) / [1, 2) / [2, ∞), 0.01 elsewhere, 8 bins: dense demo 211.8 / 212.9
+     * / 212.1 / 211.4 against 211.5). Side by side, warm medians of 5 runs of the programme, dense demo /
+     * two-component-stored / a template case with a broad Šesták–Berggren component (`exhale new disc --dense`):
+     * cells 0.01 everywhere, 8 bins 211.5 / 262.4 / 98.03 (0.6 / 1.3 / 3.5 s); 0.005 F within [0.003, 0.01], 8 bins
+     * 213.44 / 265.85 / 97.76 (0.66 / 0.97 / 2.99 s); within [0.0025, 0.05], 12 bins 213.60 / 266.99 / 99.46 (0.66 /
+     * 0.71 / 2.17 s; shipped); within [0.003, 0.05], 8 bins 213.27 / 265.73 (0.42 / 0.48 s); 0.004 F within [0.002,
+     * 0.05], 10 bins 214.12 / 267.60 (0.85 / 0.92 s); 0.003 F the same 214.44 / 268.35 (1.48 / 1.60 s); cells 0.0015
+     * everywhere with 16 bins 215.6 / 270.2 (26 / 36 s). Grids are not nested, so a finer one need not be higher
+     * everywhere. The quasi-steady programme keeps CELL_WIDTH: 0.005 F within [0.003, 0.01] gains 0.7 % on
+     * qs-two-pressure there at 3× its cost.
      */
     static final double STORED_CELL_WIDTH_PER_F = 0.005;
-    static final double STORED_CELL_WIDTH_MIN = 0.003;
+    static final double STORED_CELL_WIDTH_MIN = 0.0025;
+    static final double STORED_CELL_WIDTH_MAX = 0.05;
     /**
      * A second grid with one component (no cells to cross, so fine levels and many bins cost milliseconds), whose bound
      * is kept where larger. Measured on dense-one, clock step / bins: 0.15 / 8 186.2 min, 0.05 / 32 186.7, 0.02 / 64
@@ -224,8 +231,8 @@ public final class LowerBound {
     /** The stored-gas programme as shipped, on the given clock levels and bins, following the given corners. */
     static JointBound storedJoint(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread,
                                   double clockDelta, int bins, int[] tracked) {
-        return new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, CELL_WIDTH, STORED_CELL_WIDTH_PER_F,
-                STORED_CELL_WIDTH_MIN, 1, bins, tracked);
+        return new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, STORED_CELL_WIDTH_MAX,
+                STORED_CELL_WIDTH_PER_F, STORED_CELL_WIDTH_MIN, 1, bins, tracked);
     }
 
     /**
