@@ -47,7 +47,7 @@ final class BenchCommand implements Callable<Integer> {
     int boundRepeats;
 
     @Option(names = "--cold-repeats", defaultValue = "5",
-            description = "Runs of 'exhale plan' on each demo case in a fresh JVM, interleaved, for the wall time with the JVM's start (0 for none; default ${DEFAULT-VALUE}).")
+            description = "Runs of 'exhale plan' on each demo case in a fresh JVM, as the launcher target/exhale runs it and with this JVM's options, interleaved, for the wall time with the JVM's start (0 for none; default ${DEFAULT-VALUE}).")
     int coldRepeats;
 
     @Override
@@ -132,9 +132,17 @@ final class BenchCommand implements Callable<Integer> {
     }
 
     /**
+     * The JVM options the launcher {@code target/exhale} (src/main/sh/exhale) gives every command but {@code robust} and
+     * {@code bench}: the quick compiler only, which starts short runs sooner on small machines. A test reads the script
+     * to keep the two the same.
+     */
+    static final List<String> LAUNCHER_OPTIONS = List.of("-XX:TieredStopAtLevel=1");
+
+    /**
      * The wall time of {@code exhale plan} in a fresh JVM (start, reading, planning, writing), each case run
-     * {@link #coldRepeats} times, interleaved; with this JVM's java, options and class path, into a scratch folder
-     * deleted after (kept, with the failing run's log, when a run fails).
+     * {@link #coldRepeats} times both as the launcher runs it ({@link #LAUNCHER_OPTIONS}) and with this JVM's options
+     * (as {@code java -jar} does), interleaved; with this JVM's java and class path, into a scratch folder deleted
+     * after (kept, with the failing run's log, when a run fails).
      */
     private void coldPlans(List<Path> files) {
         if (coldRepeats <= 0) {
@@ -142,8 +150,16 @@ final class BenchCommand implements Callable<Integer> {
         }
         String javaBin = ProcessHandle.current().info().command().orElse("java");
         List<String> jvmOptions = java.lang.management.ManagementFactory.getRuntimeMXBean().getInputArguments();
+        List<String> launcherOptions = new ArrayList<>();
+        for (String o : jvmOptions) {
+            if (!o.startsWith("-XX:TieredStopAtLevel") && !o.equals("-XX:+TieredCompilation") && !o.equals("-XX:-TieredCompilation")) {
+                launcherOptions.add(o);
+            }
+        }
+        launcherOptions.addAll(LAUNCHER_OPTIONS);
+        List<List<String>> modes = List.of(launcherOptions, jvmOptions);
         String classPath = System.getProperty("java.class.path");
-        double[][] s = new double[files.size()][coldRepeats];
+        double[][] s = new double[files.size() * modes.size()][coldRepeats];
         Path scratch;
         try {
             scratch = java.nio.file.Files.createTempDirectory("exhale-bench");
@@ -153,12 +169,13 @@ final class BenchCommand implements Callable<Integer> {
         boolean failed = false;
         try {
             for (int i = 0; i < coldRepeats; i++) {
-                for (int c = 0; c < files.size(); c++) {
-                    Path out = scratch.resolve("plan-" + c + "-" + i);
-                    Path log = scratch.resolve("plan-" + c + "-" + i + ".log");
+                for (int r = 0; r < files.size() * modes.size(); r++) {
+                    int c = r / modes.size();
+                    Path out = scratch.resolve("plan-" + r + "-" + i);
+                    Path log = scratch.resolve("plan-" + r + "-" + i + ".log");
                     List<String> command = new ArrayList<>();
                     command.add(javaBin);
-                    command.addAll(jvmOptions);
+                    command.addAll(modes.get(r % modes.size()));
                     command.addAll(List.of("-cp", classPath, Main.class.getName(), "plan", files.get(c).toString(), "-o",
                             out.toString(), "--quiet"));
                     ProcessBuilder pb = new ProcessBuilder(command).redirectErrorStream(true).redirectOutput(log.toFile());
@@ -174,7 +191,7 @@ final class BenchCommand implements Callable<Integer> {
                             process.destroyForcibly();
                         }
                     }
-                    s[c][i] = (System.nanoTime() - t0) / 1e9;
+                    s[r][i] = (System.nanoTime() - t0) / 1e9;
                     if (process.exitValue() != Main.OK) {
                         failed = true;
                         throw new IllegalStateException("exhale plan " + files.get(c) + " exited with " + process.exitValue()
@@ -200,11 +217,12 @@ final class BenchCommand implements Callable<Integer> {
         }
         System.out.println();
         System.out.printf(Locale.ROOT, "%-42s %10s %10s %10s%n", "'exhale plan' in a fresh JVM (s, wall)", "median", "min", "max");
-        for (int c = 0; c < files.size(); c++) {
-            double[] t = s[c].clone();
+        for (int r = 0; r < files.size() * modes.size(); r++) {
+            double[] t = s[r].clone();
             Arrays.sort(t);
-            System.out.printf(Locale.ROOT, "%-42s %10.2f %10.2f %10.2f%n", files.get(c).getFileName(), quantile(t, 0.5), t[0],
-                    t[t.length - 1]);
+            String how = r % modes.size() == 0 ? "target/exhale" : jvmOptions.isEmpty() ? "java -jar" : "this JVM's options";
+            System.out.printf(Locale.ROOT, "%-42s %10.2f %10.2f %10.2f%n", files.get(r / modes.size()).getFileName() + " (" + how + ")",
+                    quantile(t, 0.5), t[0], t[t.length - 1]);
         }
     }
 
