@@ -247,6 +247,25 @@ final class JointBound {
         }
 
         /**
+         * An upper bound on the clock's reduced time gained over [t0, s] by a corner never hotter than
+         * min(top, cap(u) + ΔT): every grid second that [t0, s] touches counted whole, at its larger end.
+         */
+        double gainedAtMost(double t0, double s, double top) {
+            int n = cum.length - 1;
+            double kTop = clock.rateConstant(top) * (1 + 1e-12);
+            int a = Math.max(0, Math.min((int) Math.floor(t0), n));
+            int b = (int) Math.ceil(s);
+            double sum = 0;
+            for (int g = a + 1; g <= Math.min(b, n); g++) {
+                sum += Math.min(cum[g] - cum[g - 1], kTop);
+            }
+            if (b > n) {
+                sum += (b - Math.max(a, n)) * kTop;   // beyond the table the cap has settled: at most k(top)
+            }
+            return sum * (1 + 1e-12);
+        }
+
+        /**
          * A lower bound on when a move that gains reduced time f, starts at t0 or later and is never
          * hotter than min(top, cap(s) + ΔT), can end. Per grid second the move gains at most the
          * larger end's k (the cap rises), and from the second the cap reaches top at most k(top).
@@ -353,6 +372,9 @@ final class JointBound {
             return new Outcome(0, q, levels.length, cellCount, 0);
         }
         binding = storage == null ? new int[levels.length] : null;
+        levelLeast = new double[nl];
+        Arrays.fill(levelLeast, Double.POSITIVE_INFINITY);
+        levelLeast[0] = 0;
         double[] tau = new double[cellCount * bins];
         Arrays.fill(tau, Double.POSITIVE_INFINITY);
         tau[0] = 0;
@@ -464,6 +486,11 @@ final class JointBound {
                 }
             }
             memoPrev = memo;
+            double least = Double.POSITIVE_INFINITY;
+            for (double t : next) {
+                least = Math.min(least, t);
+            }
+            levelLeast[i + 1] = least;
             double[] swap = tau;
             tau = next;
             next = swap;
@@ -646,7 +673,7 @@ final class JointBound {
                     } else {
                         storedMoves(i, c, cp, flat, to, tau, next, d * (1 - 1e-12), arrival, clockGas, fLo, fHi,
                                 comps[q].rateConstant(Math.min(adm, hotCeilingK)) * (1 + 1e-12), clockColdFloor[0],
-                                dv, phiMemo);
+                                dv, phiMemo, Math.min(adm, hotCeilingK));
                     }
                 }
                 // advance cp like an odometer; a dimension stops once its x_lo exceeds what the hottest move gives
@@ -715,7 +742,7 @@ final class JointBound {
      */
     private void storedMoves(int i, int[] c, int[] cp, int from, int to, double[] tau, double[] next, double d,
                              double arrival, double clockGas, double fLo, double fHi, double uMax, double clockColdFloor,
-                             double[] dv, LevelMemo phiMemo) {
+                             double[] dv, LevelMemo phiMemo, double topK) {
         int nb = bins;
         int first = -1;
         int last = -1;
@@ -865,12 +892,91 @@ final class JointBound {
                 }
             }
         }
+        // while the cap still rises, a move's start is forced cool: the programme's φ would credit venting there that the
+        // empty cavity cannot do; with nothing vented before an instant s beyond what was stored or made, each landing
+        // bin gets a flat bound (taken where it lies above the label's middle; either is valid)
+        if (splitStart) {
+            double sourceLeast = Double.POSITIVE_INFINITY;
+            for (int l = 0; l < live; l++) {
+                int m = liveBins[l];
+                sourceLeast = Math.min(sourceLeast, Math.min(tau[from * nb + m], tauBottom[from * nb + m]));
+            }
+            if (i == 0 && sourceLeast == 0 && sourceLeast < cap.settledS()) {
+                StoredGas.Phi phi = hotCorner ? hotPhis.computeIfAbsent(memoKey, z -> storage.hot.phi(a, null))
+                        : storage.cold.phi(a, null);
+                for (int mp = 0; mp <= top; mp++) {
+                    double e = splitArrival(phi, sourceLeast, (mp + 1) * binWidth, hotCorner, i, fLo, fHi, uMax, topK);
+                    if (e > 0.5 * (landLo[mp] + landHi[mp])) {
+                        landLo[mp] = e;
+                        landHi[mp] = e;
+                    }
+                }
+            }
+        }
         for (int mp = 0; mp <= top; mp++) {
             int idx = to * nb + mp;
             next[idx] = Math.min(next[idx], landHi[mp]);
             nextBottom[idx] = Math.min(nextBottom[idx], landLo[mp]);
         }
     }
+
+    /** After {@link #compute()}: per clock level, the earliest label of any node there (+∞ where none was reached). */
+    double[] levelLeast() {
+        return levelLeast == null ? new double[0] : levelLeast.clone();
+    }
+
+    /** The clock's conversion at level i. */
+    double level(int i) {
+        return levels[i];
+    }
+
+    private double[] levelLeast;
+
+    /** Whether moves out of the start get the bound of {@link #splitArrival} (tests compare with it left out). */
+    boolean splitStart = true;
+
+    /**
+     * A lower bound on when a move that starts at t0 or later can end in a landing bin whose top is {@code roomTop}, with
+     * no venting banked before the gas is there (docs/model.md, "Lower bounds", 5, "Nothing vented before it is made").
+     * For any instant s within the move, the stored gas at s is at least 0, so what is vented up to s is at most what
+     * was stored at t0 plus what was made since; hence the gas made after s less what is vented after s is at most the
+     * stored gas at the end, at most {@code roomTop}. After s the clock still has to gain its reduced time less what the
+     * rising cap allowed up to s (and, at the hot corner, to make its gas less what that allowed), so the move ends no
+     * sooner than s plus the least duration of that remainder, nor than the cap allows from s. The bound holds for every
+     * s up to the end, so the largest over a grid of s up to a bound already proved is again a bound; repeated until it
+     * stops growing.
+     */
+    private double splitArrival(StoredGas.Phi phi, double t0, double roomTop, boolean hotCorner, int i, double fLo,
+                                double fHi, double uMax, double topK) {
+        double e = t0;
+        for (int iter = 0; iter < 12; iter++) {
+            double grown = e;
+            int n = e > t0 ? SPLIT_GRID : 0;
+            for (int g = 0; g <= n; g++) {
+                double s = n == 0 ? t0 : t0 + (e - t0) * g / n;
+                double gained = capped.gainedAtMost(t0, s, topK);
+                double fAfter = fLo - gained;
+                if (!(fAfter > 0)) {
+                    break;
+                }
+                double exactAfter = 0;
+                if (hotCorner) {
+                    double aMax = Math.min(levels[i + 1], rt[q].conversionAtMost(rt[q].upper(levels[i]) + gained));
+                    exactAfter = limits.gasifiable(q) * Math.max(0, levels[i + 1] - aMax) * (1 - 1e-12);
+                }
+                double dAfter = phi.leastDuration(roomTop - exactAfter, fAfter, fHi, uMax) * (1 - 1e-12);
+                grown = Math.max(grown, Math.max(s + dAfter, capped.arrival(s, topK, fAfter)));
+            }
+            if (!(grown > e + 1e-6)) {
+                break;
+            }
+            e = grown;
+        }
+        return e;
+    }
+
+    /** Instants per pass of {@link #splitArrival}. */
+    private static final int SPLIT_GRID = 32;
 
     /**
      * The landing labels of a move from a node's live bins into bins 0..top (docs/model.md, "Lower bounds", 5): at each
