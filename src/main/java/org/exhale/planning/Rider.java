@@ -173,6 +173,7 @@ final class Rider {
         boolean shorten = rule == Rule.RIDE_TIMES_SHORTENED;
         double prev = 0;
         int used = 0;
+        double lastStartK = Double.NaN;
         for (int i = 0; i < knotTimesS.length && used < maxRamps; i++) {
             double sp = st.setpointK();
             if (sp >= capK - 1e-9) {
@@ -229,11 +230,33 @@ final class Rider {
                 end = better[0];
                 d = better[1];
             }
-            steps.add(Math.abs(end - sp) < 1e-9 ? new Step.Hold(d) : new Step.Ramp(end, Math.abs(end - sp) / d));
+            Step step = Math.abs(end - sp) < 1e-9 ? new Step.Hold(d) : new Step.Ramp(end, Math.abs(end - sp) / d);
             st.advance(end, d);
+            if (!steps.isEmpty() && continues(lastStartK, steps.get(steps.size() - 1), step)) {
+                // the same ramp goes on at the same rate (typically the fastest): one step, which leaves a step for later
+                Step.Ramp prevRamp = (Step.Ramp) steps.get(steps.size() - 1);
+                steps.set(steps.size() - 1, new Step.Ramp(end, prevRamp.rateKPerS()));
+                continue;
+            }
+            steps.add(step);
+            lastStartK = sp;
             used++;
         }
         return finish(st, steps, used, maxRamps, ts, minStep, ok);
+    }
+
+    /**
+     * Whether {@code next} (which starts where {@code last} ends) continues the ramp {@code last}, which started at
+     * {@code lastStartK}, at the same rate in the same direction: then the two are one step of the tool with the same
+     * setpoint path.
+     */
+    static boolean continues(double lastStartK, Step last, Step next) {
+        if (!(last instanceof Step.Ramp a) || !(next instanceof Step.Ramp b)) {
+            return false;
+        }
+        boolean upA = a.targetK() > lastStartK;
+        boolean upB = b.targetK() > a.targetK();
+        return upA == upB && Math.abs(a.rateKPerS() - b.rateKPerS()) <= 1e-9 * Math.max(a.rateKPerS(), b.rateKPerS());
     }
 
     /**
