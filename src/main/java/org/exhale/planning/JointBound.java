@@ -672,7 +672,7 @@ final class JointBound {
                         next[to] = Math.min(next[to], Math.max(t0 + d, arrival));
                     } else {
                         storedMoves(i, c, cp, flat, to, tau, next, d * (1 - 1e-12), arrival, clockGas, fLo, fHi,
-                                comps[q].rateConstant(Math.min(adm, hotCeilingK)) * (1 + 1e-12), clockColdFloor[0],
+                                comps[q].rateConstant(Math.min(adm, hotCeilingK)) * (1 + 1e-12), minOf(clockColdFloor),
                                 dv, phiMemo, Math.min(adm, hotCeilingK));
                     }
                 }
@@ -920,6 +920,11 @@ final class JointBound {
         }
     }
 
+    /** How many cells of the other components' grids the programme has (their product). */
+    int cells() {
+        return cellCount;
+    }
+
     /** After {@link #compute()}: per clock level, the earliest label of any node there (+∞ where none was reached). */
     double[] levelLeast() {
         return levelLeast == null ? new double[0] : levelLeast.clone();
@@ -931,6 +936,14 @@ final class JointBound {
     }
 
     private double[] levelLeast;
+
+    private static double minOf(double[] v) {
+        double m = Double.POSITIVE_INFINITY;
+        for (double x : v) {
+            m = Math.min(m, x);
+        }
+        return m;
+    }
 
     /** Whether moves out of the start get the bound of {@link #splitArrival} (tests compare with it left out). */
     boolean splitStart = true;

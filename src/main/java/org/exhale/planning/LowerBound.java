@@ -77,22 +77,30 @@ public final class LowerBound {
     static final int STORED_BINS = 12;
     static final double STORED_CLOCK_DELTA = 0.15;
     /**
-     * The stored-gas programme's cells of another component: at most 0.005 × its reduced time wide, between 0.0025 and
+     * The stored-gas programme's cells of another component: at most 0.004 × its reduced time wide, between 0.002 and
      * 0.05 — narrow early in the bake, where that component moves little per clock level and re-placing it anywhere in
-     * its cell costs most, and wide late, where it moves fast and coarse cells cost nothing. Measured (minutes; cells
-     * 0.002 wide only for F in [0, 0.3) / [0.3, 1) / [1, 2) / [2, ∞), 0.01 elsewhere, 8 bins: dense demo 211.8 / 212.9
-     * / 212.1 / 211.4 against 211.5). Side by side, warm medians of 5 runs of the programme, dense demo /
-     * two-component-stored / a template case with a broad Šesták–Berggren component (`exhale new disc --dense`):
-     * cells 0.01 everywhere, 8 bins 211.5 / 262.4 / 98.03 (0.6 / 1.3 / 3.5 s); 0.005 F within [0.003, 0.01], 8 bins
-     * 213.44 / 265.85 / 97.76 (0.66 / 0.97 / 2.99 s); within [0.0025, 0.05], 12 bins 213.60 / 266.99 / 99.46 (0.66 /
-     * 0.71 / 2.17 s; shipped); within [0.003, 0.05], 8 bins 213.27 / 265.73 (0.42 / 0.48 s); 0.004 F within [0.002,
-     * 0.05], 10 bins 214.12 / 267.60 (0.85 / 0.92 s); 0.003 F the same 214.44 / 268.35 (1.48 / 1.60 s); cells 0.0015
-     * everywhere with 16 bins 215.6 / 270.2 (26 / 36 s). Grids are not nested, so a finer one need not be higher
-     * everywhere. The quasi-steady programme keeps CELL_WIDTH: 0.005 F within [0.003, 0.01] gains 0.7 % on
-     * qs-two-pressure there at 3× its cost.
+     * its cell costs most, and wide late, where it moves fast — unless that gives more than {@link #STORED_CELL_BUDGET}
+     * cells; then 0.005 × F between 0.0025 and 0.05 (a case with a broad Šesták–Berggren component, as `exhale new disc
+     * --dense` writes, has 4609 cells by the first rule, 3697 by the second, which already plans in about 4.5 s). Any
+     * grid is rigorous; this spends resolution where it is affordable. Measured before the start's bound (minutes;
+     * cells 0.002 wide only for F in [0, 0.3) / [0.3, 1) / [1, 2) / [2, ∞), 0.01 elsewhere, 8 bins: dense demo 211.8 /
+     * 212.9 / 212.1 / 211.4 against 211.5). Side by side, warm medians of 5 runs of the programme, dense demo /
+     * two-component-stored / the template case: cells 0.01 everywhere, 8 bins 211.5 / 262.4 / 98.03 (0.6 / 1.3 / 3.5 s);
+     * 0.005 F within [0.003, 0.01], 8 bins 213.44 / 265.85 / 97.76 (0.66 / 0.97 / 2.99 s); within [0.0025, 0.05], 12
+     * bins 213.60 / 266.99 / 99.46 (0.66 / 0.71 / 2.17 s); 0.004 F within [0.002, 0.05], 10 bins 214.12 / 267.60 (0.85 /
+     * 0.92 s); cells 0.0015 everywhere with 16 bins 215.6 / 270.2 (26 / 36 s). With the start's bound (warm medians of 3,
+     * 12 bins): 0.005 F within [0.0025, 0.05] 217.30 / 270.15 / 99.83 min (0.70 / 0.73 / 2.25 s; 883 / 898 / 3697
+     * cells); 0.004 F within [0.002, 0.05] 217.89 / 271.14 / 100.00 (1.09 / 1.16 / 4.88 s; 1100 / 1114 / 4609 cells);
+     * 0.0035 F 218.10 / 271.49 / 99.96 (1.30 / 1.38 / 7.04 s); 0.003 F 218.38 (1.90 s); switching to 0.005 F beyond
+     * F = 1 / 2 / 3 217.41 / 217.64 / 217.79 (the late cells matter as well). Grids are not nested, so a finer one need
+     * not be higher everywhere. The quasi-steady programme keeps CELL_WIDTH: 0.005 F within [0.003, 0.01] gains 0.7 %
+     * on qs-two-pressure there at 3× its cost.
      */
-    static final double STORED_CELL_WIDTH_PER_F = 0.005;
-    static final double STORED_CELL_WIDTH_MIN = 0.0025;
+    static final double STORED_CELL_WIDTH_PER_F = 0.004;
+    static final double STORED_CELL_WIDTH_MIN = 0.002;
+    static final double STORED_CELL_WIDTH_PER_F_COARSE = 0.005;
+    static final double STORED_CELL_WIDTH_MIN_COARSE = 0.0025;
+    static final int STORED_CELL_BUDGET = 2000;
     static final double STORED_CELL_WIDTH_MAX = 0.05;
     /**
      * A second grid with one component (no cells to cross, so fine levels and many bins cost milliseconds), whose bound
@@ -231,8 +239,13 @@ public final class LowerBound {
     /** The stored-gas programme as shipped, on the given clock levels and bins, following the given corners. */
     static JointBound storedJoint(BakeCase bake, InstantLimits limits, TemperatureCap cap, double spread,
                                   double clockDelta, int bins, int[] tracked) {
-        return new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, STORED_CELL_WIDTH_MAX,
+        JointBound fine = new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, STORED_CELL_WIDTH_MAX,
                 STORED_CELL_WIDTH_PER_F, STORED_CELL_WIDTH_MIN, 1, bins, tracked);
+        if (fine.cells() <= STORED_CELL_BUDGET) {
+            return fine;
+        }
+        return new JointBound(bake, limits, cap, spread, clockDelta, CELL_DELTA, STORED_CELL_WIDTH_MAX,
+                STORED_CELL_WIDTH_PER_F_COARSE, STORED_CELL_WIDTH_MIN_COARSE, 1, bins, tracked);
     }
 
     /**
