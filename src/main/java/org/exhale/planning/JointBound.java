@@ -553,6 +553,8 @@ final class JointBound {
 
     /** The least τ of the nodes from which the target may be reached within a move (updated as levels are processed). */
     private double best;
+    /** Per clock level, the earliest label of any node there (filled by {@link #compute()}). */
+    private double[] levelLeast;
 
     /** What one level's moves gave: whether any node was live, and the hottest admissible temperature of its moves. */
     private record Level(boolean any, double hottest) {
@@ -892,24 +894,18 @@ final class JointBound {
                 }
             }
         }
-        // while the cap still rises, a move's start is forced cool: the programme's φ would credit venting there that the
-        // empty cavity cannot do; with nothing vented before an instant s beyond what was stored or made, each landing
-        // bin gets a flat bound (taken where it lies above the label's middle; either is valid)
-        if (splitStart) {
-            double sourceLeast = Double.POSITIVE_INFINITY;
-            for (int l = 0; l < live; l++) {
-                int m = liveBins[l];
-                sourceLeast = Math.min(sourceLeast, Math.min(tau[from * nb + m], tauBottom[from * nb + m]));
-            }
-            if (i == 0 && sourceLeast == 0 && sourceLeast < cap.settledS()) {
-                StoredGas.Phi phi = hotCorner ? hotPhis.computeIfAbsent(memoKey, z -> storage.hot.phi(a, null))
-                        : storage.cold.phi(a, null);
-                for (int mp = 0; mp <= top; mp++) {
-                    double e = splitArrival(phi, sourceLeast, (mp + 1) * binWidth, hotCorner, i, fLo, fHi, uMax, topK);
-                    if (e > 0.5 * (landLo[mp] + landHi[mp])) {
-                        landLo[mp] = e;
-                        landHi[mp] = e;
-                    }
+        // out of the start the cap still rises and the bake is forced cool: the programme's φ would credit venting there
+        // that the empty cavity cannot do; with nothing vented over [s, e] beyond what is made there and stored at the
+        // end, each landing bin gets a flat bound (taken where it lies above the label's middle; either is valid)
+        if (splitStart && i == 0) {
+            // (level 0 has one live node, the start, with its labels at 0: every recipe starts its first move at t = 0)
+            StoredGas.Phi phi = hotCorner ? hotPhis.computeIfAbsent(memoKey, z -> storage.hot.phi(a, null))
+                    : storage.cold.phi(a, null);
+            for (int mp = 0; mp <= top; mp++) {
+                double e = splitArrival(phi, (mp + 1) * binWidth, hotCorner, fLo, fHi, uMax, topK);
+                if (e > 0.5 * (landLo[mp] + landHi[mp])) {
+                    landLo[mp] = e;
+                    landHi[mp] = e;
                 }
             }
         }
@@ -935,8 +931,6 @@ final class JointBound {
         return levels[i];
     }
 
-    private double[] levelLeast;
-
     private static double minOf(double[] v) {
         double m = Double.POSITIVE_INFINITY;
         for (double x : v) {
@@ -949,38 +943,39 @@ final class JointBound {
     boolean splitStart = true;
 
     /**
-     * A lower bound on when a move that starts at t0 or later can end in a landing bin whose top is {@code roomTop}, with
-     * no venting banked before the gas is there (docs/model.md, "Lower bounds", 5, "Nothing vented before it is made").
-     * For any instant s within the move, the stored gas at s is at least 0, so what is vented up to s is at most what
-     * was stored at t0 plus what was made since; hence the gas made after s less what is vented after s is at most the
-     * stored gas at the end, at most {@code roomTop}. After s the clock still has to gain its reduced time less what the
-     * rising cap allowed up to s (and, at the hot corner, to make its gas less what that allowed), so the move ends no
-     * sooner than s plus the least duration of that remainder, nor than the cap allows from s. The bound holds for every
-     * s up to the end, so the largest over a grid of s up to a bound already proved is again a bound; repeated until it
-     * stops growing.
+     * A lower bound on when the first move (from the start, t = 0, where every recipe starts it) can end in a landing
+     * bin whose top is {@code roomTop}, with no venting credited before the gas is there (docs/model.md, "Lower bounds",
+     * 5, "Nothing vented before it is made"; derived here, no source). For any instant s within the move [0, e], the
+     * stored gas at s is at least 0, so the gas made over [s, e] less what is vented over it is at most the stored gas
+     * at the end, at most {@code roomTop}. Over [s, e] the clock still gains its reduced time less what the rising cap
+     * allowed up to s (and, at the hot corner, makes its gas less what that allowed), so the move ends no sooner than s
+     * plus the least duration of that remainder, nor than the cap allows from s. The bound holds for every s up to the
+     * end, so the largest over a grid of s up to a bound already proved is again a bound; repeated until it stops
+     * growing.
      */
-    private double splitArrival(StoredGas.Phi phi, double t0, double roomTop, boolean hotCorner, int i, double fLo,
-                                double fHi, double uMax, double topK) {
-        double e = t0;
+    private double splitArrival(StoredGas.Phi phi, double roomTop, boolean hotCorner, double fLo, double fHi, double uMax,
+                                double topK) {
+        double e = 0;
         for (int iter = 0; iter < 12; iter++) {
             double grown = e;
-            int n = e > t0 ? SPLIT_GRID : 0;
+            int n = e > 0 ? SPLIT_GRID : 0;
             for (int g = 0; g <= n; g++) {
-                double s = n == 0 ? t0 : t0 + (e - t0) * g / n;
-                double gained = capped.gainedAtMost(t0, s, topK);
+                double s = n == 0 ? 0 : e * g / n;
+                double gained = capped.gainedAtMost(0, s, topK);
                 double fAfter = fLo - gained;
                 if (!(fAfter > 0)) {
                     break;
                 }
                 double exactAfter = 0;
                 if (hotCorner) {
-                    double aMax = Math.min(levels[i + 1], rt[q].conversionAtMost(rt[q].upper(levels[i]) + gained));
-                    exactAfter = limits.gasifiable(q) * Math.max(0, levels[i + 1] - aMax) * (1 - 1e-12);
+                    double aMax = Math.min(levels[1], rt[q].conversionAtMost(rt[q].upper(levels[0]) + gained));
+                    exactAfter = limits.gasifiable(q) * Math.max(0, levels[1] - aMax) * (1 - 1e-12);
                 }
                 double dAfter = phi.leastDuration(roomTop - exactAfter, fAfter, fHi, uMax) * (1 - 1e-12);
                 grown = Math.max(grown, Math.max(s + dAfter, capped.arrival(s, topK, fAfter)));
             }
-            if (!(grown > e + 1e-6)) {
+            if (!(grown > e + 1e-6) || !Double.isFinite(grown)) {
+                e = grown;
                 break;
             }
             e = grown;
