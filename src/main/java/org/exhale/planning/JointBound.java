@@ -974,11 +974,11 @@ final class JointBound {
                 double dAfter = phi.leastDuration(roomTop - exactAfter, fAfter, fHi, uMax) * (1 - 1e-12);
                 grown = Math.max(grown, Math.max(s + dAfter, capped.arrival(s, topK, fAfter)));
             }
-            if (!(grown > e + 1e-6) || !Double.isFinite(grown)) {
-                e = grown;
+            boolean settled = !(grown > e + 1e-6) || !Double.isFinite(grown);
+            e = grown;
+            if (settled) {
                 break;
             }
-            e = grown;
         }
         return e;
     }
